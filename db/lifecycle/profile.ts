@@ -1,0 +1,83 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+
+/** Everything that differs between the demo and the test stack. Test never touches demo data. */
+export type ProfileName = 'demo' | 'test';
+
+export interface Profile {
+  name: ProfileName;
+  root: string; // repository root
+  dataDir: string; // .data/<profile>
+  mysqlDir: string;
+  socketPath: string;
+  dbPort: number;
+  dbName: string;
+  appPort: number;
+  smtpPort: number;
+  mailDir: string;
+}
+
+const PORTS: Record<ProfileName, { db: number; app: number; smtp: number }> = {
+  demo: { db: 3307, app: 3000, smtp: 2525 },
+  test: { db: 3317, app: 3100, smtp: 2626 },
+};
+
+export function resolveProfile(name: ProfileName, root = process.cwd()): Profile {
+  const dataDir = path.join(root, '.data', name);
+  return {
+    name,
+    root,
+    dataDir,
+    mysqlDir: path.join(dataDir, 'mysql'),
+    socketPath: path.join(dataDir, 'mysqld.sock'),
+    dbPort: PORTS[name].db,
+    dbName: name === 'demo' ? 'duskwatch' : 'duskwatch_test',
+    appPort: PORTS[name].app,
+    smtpPort: PORTS[name].smtp,
+    // The demo's catcher writes where the README says: .data/mail/.
+    mailDir: name === 'demo' ? path.join(root, '.data', 'mail') : path.join(dataDir, 'mail'),
+  };
+}
+
+interface Secrets {
+  dbPassword: string;
+  nextAuthSecret: string;
+  deviceTokenSecret: string;
+}
+
+/** Generated once per profile, kept under .data/ (git-ignored), never committed. */
+export function loadSecrets(profile: Profile): Secrets {
+  const file = path.join(profile.dataDir, 'secrets.json');
+  if (existsSync(file)) return JSON.parse(readFileSync(file, 'utf8')) as Secrets;
+  mkdirSync(profile.dataDir, { recursive: true });
+  const secrets: Secrets = {
+    dbPassword: randomBytes(18).toString('base64url'),
+    nextAuthSecret: randomBytes(32).toString('base64url'),
+    deviceTokenSecret: randomBytes(32).toString('base64url'),
+  };
+  writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  return secrets;
+}
+
+/** The environment every process of this profile runs with (parsed again by lib/env.ts). */
+export function profileEnv(profile: Profile): Record<string, string> {
+  const secrets = loadSecrets(profile);
+  return {
+    DUSKWATCH_PROFILE: profile.name,
+    NEXT_TELEMETRY_DISABLED: '1',
+    DB_HOST: '127.0.0.1',
+    DB_PORT: String(profile.dbPort),
+    DB_NAME: profile.dbName,
+    DB_USER: 'duskwatch_app',
+    DB_PASSWORD: secrets.dbPassword,
+    APP_URL: `http://127.0.0.1:${profile.appPort}`,
+    NEXTAUTH_URL: `http://127.0.0.1:${profile.appPort}`,
+    NEXTAUTH_SECRET: secrets.nextAuthSecret,
+    DEVICE_TOKEN_SECRET: secrets.deviceTokenSecret,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(profile.smtpPort),
+    MAIL_DIR: profile.mailDir,
+    UPLOAD_DIR: path.join(profile.dataDir, 'uploads'),
+  };
+}

@@ -1,0 +1,58 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import knexFactory from 'knex';
+import { migratorConfig } from './migration-source';
+import { provisionDatabase, rootConnectionConfig, startMariadb } from './mariadb';
+import type { Profile } from './profile';
+
+/** The steps both launchers share: database up and migrated, app built. */
+export async function prepareDatabase(profile: Profile, opts: { fresh?: boolean } = {}): Promise<void> {
+  const started = await startMariadb(profile);
+  console.log(`[db] MariaDB ${started ? 'started' : 'already running'} on 127.0.0.1:${profile.dbPort} (${profile.mysqlDir})`);
+  await provisionDatabase(profile, opts);
+  const knex = rootKnex(profile);
+  try {
+    const [batch, files] = await knex.migrate.latest(migratorConfig);
+    console.log(`[db] migrations: batch ${batch}, ${files.length} applied`);
+  } finally {
+    await knex.destroy();
+  }
+}
+
+export function rootKnex(profile: Profile) {
+  return knexFactory({ client: 'mysql2', connection: { ...rootConnectionConfig(profile), timezone: 'Z' }, pool: { min: 0, max: 4 } });
+}
+
+function newestMtime(dir: string): number {
+  let newest = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const full = path.join(dir, entry.name);
+    if (entry.isDirectory()) newest = Math.max(newest, newestMtime(full));
+    else newest = Math.max(newest, statSync(full).mtimeMs);
+  }
+  return newest;
+}
+
+/** Builds the Next app when a source is newer than the last build. */
+export function buildAppIfStale(root: string): void {
+  const buildId = path.join(root, '.next', 'BUILD_ID');
+  const sources = ['app', 'components', 'lib', 'public'].map((d) => path.join(root, d)).filter(existsSync);
+  const extra = ['next.config.mjs', 'tailwind.config.ts', 'package-lock.json', 'proxy.ts'].map((f) => path.join(root, f)).filter(existsSync);
+  const newestSource = Math.max(...sources.map(newestMtime), ...extra.map((f) => statSync(f).mtimeMs));
+  if (existsSync(buildId) && statSync(buildId).mtimeMs > newestSource) {
+    console.log('[app] build is current');
+    return;
+  }
+  console.log('[app] building (next build)…');
+  const r = spawnSync(path.join(root, 'node_modules', '.bin', 'next'), ['build'], {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1' },
+  });
+  if (r.status !== 0) throw new Error('next build failed');
+}
+
+export function binPath(root: string, name: string): string {
+  return path.join(root, 'node_modules', '.bin', name);
+}

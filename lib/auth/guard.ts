@@ -1,0 +1,51 @@
+import 'server-only';
+import { getServerSession } from 'next-auth';
+import { cookies } from 'next/headers';
+import { listMembershipsOfUser, type MemberRow } from '../db/queries/people';
+import { problems } from '../errors';
+import { authOptions } from './options';
+import { can, type Permission } from './roles';
+
+export type Member = MemberRow;
+
+export const ORG_COOKIE = 'dw-org';
+
+/**
+ * The signed-in member of the current organization, re-read from the database on every
+ * call: a demotion takes effect on the next request and a removed member is signed out.
+ * Throws 401 when signed out (or no longer a member anywhere), 403 when the role is too low.
+ */
+export async function requireMember(permission: Permission = 'fleet:read'): Promise<Member> {
+  const member = await currentMember();
+  if (!member) throw problems.unauthorized();
+  if (!can(member.role, permission)) throw problems.forbidden();
+  return member;
+}
+
+export async function currentMember(): Promise<Member | null> {
+  const session = await getServerSession(authOptions());
+  const userId = Number((session?.user as { id?: string } | undefined)?.id);
+  if (!Number.isSafeInteger(userId) || userId <= 0) return null;
+  const memberships = await listMembershipsOfUser(userId);
+  if (memberships.length === 0) return null;
+  const chosen = Number((await cookies()).get(ORG_COOKIE)?.value);
+  return memberships.find((m) => m.orgId === chosen) ?? memberships[0];
+}
+
+/**
+ * CSRF defence for cookie-authenticated writes (OWASP ASVS 5.0 V3.5): the browser's Origin
+ * must be our own host. Browsers always send Origin on cross-site POST, PUT, PATCH, DELETE.
+ */
+export function assertSameOrigin(request: Request): void {
+  if (['GET', 'HEAD', 'OPTIONS'].includes(request.method)) return;
+  const origin = request.headers.get('origin');
+  const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host');
+  if (!origin || !host) throw problems.forbidden('Cross-site request refused: the Origin header is missing.');
+  let originHost: string;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    throw problems.forbidden('Cross-site request refused: the Origin header is malformed.');
+  }
+  if (originHost !== host) throw problems.forbidden('Cross-site request refused.');
+}

@@ -1,0 +1,71 @@
+import { energyJoules, modelBank, shortCircuitAmps, stateOfCharge, usableJoules } from './bank';
+import { solveBurstFloor } from './burst';
+import { nextReportSeconds } from './cadence';
+import { averageOutputWatts, bankWatts } from './load';
+import { marginOverWindow } from './margin';
+import { stateFromMargin } from './state';
+import { nextRechargeAt, SEARCH_LIMIT_SECONDS } from './sun';
+import {
+  DEFAULT_THRESHOLDS,
+  type BankSpec,
+  type ConverterSpec,
+  type LoadSpec,
+  type MarginState,
+  type SiteSpec,
+  type StateThresholds,
+} from './types';
+
+export interface NodeInput {
+  bank: BankSpec;
+  converter: ConverterSpec;
+  load: LoadSpec;
+  site: SiteSpec;
+  /** Bank volts now. */
+  volts: number;
+  at: Date;
+  thresholds?: StateThresholds;
+}
+
+/** The model's answer for one node, field for field the reply of POST /api/v1/model/evaluate. */
+export interface NodeEvaluation {
+  energyJoules: number;
+  /** Above the converter cutoff. */
+  usableJoules: number;
+  soc: number;
+  burstFloorVolts: number;
+  reserveJoules: number;
+  /** Bank-side average power at the given voltage, at the configured interval. */
+  loadWatts: number;
+  rechargeAt: Date | null;
+  margin: number;
+  brownoutAt: Date | null;
+  state: MarginState;
+  nextReportSeconds: number;
+  shortCircuitAmps: number;
+}
+
+export function evaluateNode(input: NodeInput): NodeEvaluation {
+  const { converter, load, site, volts, at } = input;
+  const bank = modelBank({ bank: input.bank });
+  // The floor and the recharge instant do not depend on the report interval: solve them once
+  // and share them with the cadence search.
+  const floorVolts = solveBurstFloor({ bank, converter, load }).volts;
+  const rechargeAt = nextRechargeAt({ site, at });
+  const windowSeconds = rechargeAt ? (rechargeAt.getTime() - at.getTime()) / 1000 : SEARCH_LIMIT_SECONDS;
+  const result = marginOverWindow({ bank, converter, load, volts, windowSeconds, floorVolts });
+  const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts });
+  return {
+    energyJoules: energyJoules({ farads: bank.farads, volts }),
+    usableJoules: usableJoules({ farads: bank.farads, volts, floorVolts: converter.cutoffVolts }),
+    soc: stateOfCharge({ volts, cutoffVolts: converter.cutoffVolts, maxVolts: bank.maxVolts }),
+    burstFloorVolts: floorVolts,
+    reserveJoules: result.reserveJoules,
+    loadWatts: bankWatts({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps, volts }),
+    rechargeAt,
+    margin: result.margin,
+    brownoutAt: result.brownoutSeconds === null ? null : new Date(at.getTime() + result.brownoutSeconds * 1000),
+    state: stateFromMargin({ margin: result.margin, thresholds: input.thresholds ?? DEFAULT_THRESHOLDS }),
+    nextReportSeconds: nextReportSeconds({ bank: input.bank, converter, load, volts, windowSeconds, floorVolts }),
+    shortCircuitAmps: shortCircuitAmps({ volts, esrOhms: bank.esrOhms }),
+  };
+}

@@ -1,0 +1,78 @@
+import { evaluateNode, type StateThresholds } from '../energy';
+import type { NodeState } from '../config/node-states';
+import type { NodeModelSpec } from './node-spec';
+
+/**
+ * A node's latest status from its latest reading. The margin states come from the energy
+ * model; `dark`, `silent` and `new` come from the reading history: a node quiet for more than
+ * three report intervals is `dark` when it went quiet at or near its burst floor (or after
+ * its projected brownout), otherwise `silent`.
+ */
+export const QUIET_INTERVALS = 3;
+// "Near the floor": within this fraction of the span from the floor to full.
+const NEAR_FLOOR_FRACTION = 0.1;
+
+export interface LatestReading {
+  t: Date;
+  volts: number; // calibrated
+  panelVolts: number | null;
+}
+
+export interface DerivedStatus {
+  state: NodeState;
+  last_reading_at: Date | null;
+  volts: number | null;
+  panel_volts: number | null;
+  energy_joules: number | null;
+  soc: number | null;
+  burst_floor_volts: number | null;
+  reserve_joules: number | null;
+  margin: number | null;
+  load_watts: number | null;
+  recharge_at: Date | null;
+  brownout_at: Date | null;
+  next_report_s: number | null;
+  evaluated_at: Date;
+}
+
+export function deriveNodeStatus(opts: {
+  spec: NodeModelSpec;
+  latest: LatestReading | null;
+  now: Date;
+  thresholds: StateThresholds;
+  lastAdvisedIntervalSeconds?: number | null;
+}): DerivedStatus {
+  const { spec, latest, now } = opts;
+  if (!latest) {
+    return {
+      state: 'new', last_reading_at: null, volts: null, panel_volts: null, energy_joules: null, soc: null, burst_floor_volts: null,
+      reserve_joules: null, margin: null, load_watts: null, recharge_at: null, brownout_at: null, next_report_s: null, evaluated_at: now,
+    };
+  }
+  const e = evaluateNode({ ...spec, volts: latest.volts, at: latest.t, thresholds: opts.thresholds });
+  const expectedInterval = Math.max(spec.load.intervalSeconds, opts.lastAdvisedIntervalSeconds ?? 0, e.nextReportSeconds);
+  const quietSeconds = (now.getTime() - latest.t.getTime()) / 1000;
+  let state: NodeState = e.state;
+  if (quietSeconds > QUIET_INTERVALS * expectedInterval) {
+    const maxVolts = spec.bank.cellsSeries * spec.bank.cellRatedVolts;
+    const nearFloor = latest.volts <= e.burstFloorVolts + NEAR_FLOOR_FRACTION * (maxVolts - e.burstFloorVolts);
+    const brownedOutByNow = e.brownoutAt !== null && e.brownoutAt.getTime() <= now.getTime();
+    state = nearFloor || brownedOutByNow ? 'dark' : 'silent';
+  }
+  return {
+    state,
+    last_reading_at: latest.t,
+    volts: latest.volts,
+    panel_volts: latest.panelVolts,
+    energy_joules: e.energyJoules,
+    soc: e.soc,
+    burst_floor_volts: e.burstFloorVolts,
+    reserve_joules: e.reserveJoules,
+    margin: Number.isFinite(e.margin) ? e.margin : null,
+    load_watts: e.loadWatts,
+    recharge_at: e.rechargeAt,
+    brownout_at: e.brownoutAt,
+    next_report_s: e.nextReportSeconds,
+    evaluated_at: now,
+  };
+}

@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import { averageOutputWatts, bankWatts, evaluateNode, nightMargin } from '@/lib/energy';
+import { bank, converter, load, site } from './fixtures';
+
+const at = new Date('2026-12-21T17:00:00Z');
+
+describe('evaluateNode', () => {
+  const result = evaluateNode({ bank, converter, load, site, volts: 2.0, at });
+
+  it('answers exactly the fields of the API reply', () => {
+    expect(Object.keys(result).sort()).toEqual(
+      [
+        'energyJoules', 'usableJoules', 'soc', 'burstFloorVolts', 'reserveJoules', 'loadWatts',
+        'rechargeAt', 'margin', 'brownoutAt', 'state', 'nextReportSeconds', 'shortCircuitAmps',
+      ].sort(),
+    );
+  });
+
+  it('bank figures follow the definitions (derived here for 2s3p of 100 F, 20 mΩ cells)', () => {
+    const farads = 150; // 3·100/2
+    expect(result.energyJoules).toBeCloseTo(0.5 * farads * 4, 9);
+    expect(result.usableJoules).toBeCloseTo(0.5 * farads * (4 - 0.25), 9);
+    expect(result.soc).toBeCloseTo((4 - 0.25) / (5.4 ** 2 - 0.25), 12);
+    expect(result.shortCircuitAmps).toBeCloseTo(2.0 / ((2 * 0.02) / 3), 9);
+    const out = averageOutputWatts({ load, outputVolts: 3.3 });
+    expect(result.loadWatts).toBeCloseTo(bankWatts({ outputWatts: out, efficiency: 0.85, leakageAmps: 60e-6, volts: 2 }), 15);
+  });
+
+  it('agrees with nightMargin and maps the margin to a state', () => {
+    const m = nightMargin({ bank, converter, load, site, volts: 2.0, at });
+    expect(result.margin).toBeCloseTo(m.margin, 12);
+    expect(result.rechargeAt).toEqual(m.rechargeAt);
+    expect(result.brownoutAt).toEqual(m.brownoutAt);
+    expect(result.state).toBe(result.margin >= 1.5 ? 'steady' : result.margin >= 1 ? 'thin' : 'short');
+    expect(evaluateNode({ bank, converter, load, site, volts: 5.4, at }).state).toBe('steady');
+  });
+
+  it('uses per-organization thresholds', () => {
+    const full = evaluateNode({ bank, converter, load, site, volts: 5.4, at });
+    const strict = evaluateNode({ bank, converter, load, site, volts: 5.4, at, thresholds: { steady: full.margin + 1, thin: full.margin - 0.1 } });
+    expect(strict.state).toBe('thin');
+  });
+});
