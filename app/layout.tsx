@@ -6,6 +6,7 @@ import './globals.css';
 export const metadata: Metadata = {
   title: { default: 'Duskwatch', template: '%s · Duskwatch' },
   description: 'Which supercapacitor nodes make it to sunrise, and with what margin.',
+  icons: { icon: '/favicon.svg' },
 };
 
 export const viewport: Viewport = { themeColor: '#0b1120', width: 'device-width', initialScale: 1 };

@@ -1,7 +1,7 @@
 import { SimNode } from '../physics/node';
 import { hashSeed, seedFromText } from '../physics/prng';
 import type { SimNodeSpec, SimNodeState, SimReading } from '../physics/types';
-import { createWeather, type Weather } from '../physics/weather';
+import { createWeather, type ForcedSpell, type Weather } from '../physics/weather';
 import { demoOrganization, demoOrganizations, demoSites, secondDemoOrganization, secondDemoSites, type DemoSite } from './demo-orgs';
 import { demoNodes, secondDemoNodes, type DemoNode } from './demo-nodes';
 
@@ -11,8 +11,21 @@ export type { DemoNodeState, DemoHiddenFaults } from './demo-nodes';
 export type { DemoOrganization } from './demo-orgs';
 
 const HOUR_MS = 3_600_000;
-/** The demo ends in a cloudy spell (DESIGN.md §1: "a long cloudy spell" is one of the causes). */
+/**
+ * The demo's last days are scripted: two clear days, then a cloudy spell up to "now" and on
+ * through the night (DESIGN.md §1 names "a long cloudy spell" as a cause). The clear days let
+ * the shaded panel fill its bank, so its state at "now" does not hang on earlier random weather.
+ */
 export const CLOUDY_SPELL_HOURS_BEFORE_NOW = 46;
+export const CLEAR_SPELL_HOURS_BEFORE_NOW = 94;
+
+function makeDemoSpells(now: Date): ForcedSpell[] {
+  const at = (hoursFromNow: number) => new Date(now.getTime() + hoursFromNow * HOUR_MS);
+  return [
+    { from: at(-CLEAR_SPELL_HOURS_BEFORE_NOW), to: at(-CLOUDY_SPELL_HOURS_BEFORE_NOW), kind: 'clear' },
+    { from: at(-CLOUDY_SPELL_HOURS_BEFORE_NOW), to: at(12), kind: 'overcast' },
+  ];
+}
 const allSites = [...demoSites, ...secondDemoSites];
 
 export function findDemoSite(siteSlug: string): DemoSite {
@@ -69,7 +82,7 @@ export function generateDemoHistory({ now, days = 14, seed = 1, dtSeconds = 60, 
   const windowStartMs = now.getTime() - days * 24 * HOUR_MS;
   const startAt = new Date(windowStartMs - warmupDays * 24 * HOUR_MS);
   // One sky per organization (its sites share a valley or a mesa), with the scripted cloudy spell.
-  const forcedSpells = [{ from: new Date(now.getTime() - CLOUDY_SPELL_HOURS_BEFORE_NOW * HOUR_MS), to: new Date(now.getTime() + 12 * HOUR_MS), kind: 'overcast' as const }];
+  const forcedSpells = makeDemoSpells(now);
   const weathers = new Map<string, Weather>();
   for (const site of allSites) {
     weathers.set(site.slug, createWeather({ seed: hashSeed(seed, seedFromText(site.organizationSlug)), lonDeg: site.lonDeg, forcedSpells }));
