@@ -33,7 +33,7 @@ export function checkBurst({
   if (watts === 0) {
     return { completes: restingVolts >= converter.cutoffVolts, restingVolts, terminalVolts: restingVolts, inputAmps: 0 };
   }
-  const discriminant = restingSquared - (2 * bank.esrOhms * watts) / eta;
+  const discriminant = restingSquared - (4 * bank.esrOhms * watts) / eta;
   if (discriminant < 0) return failed(restingVolts);
   const terminalVolts = (restingVolts + Math.sqrt(discriminant)) / 2;
   const inputAmps = watts / (eta * terminalVolts);

@@ -49,7 +49,7 @@ export function secondsAtVolts({ table, volts }: { table: DischargeTable; volts:
   for (let k = 1; k < nodes.length; k++) {
     if (volts >= nodes[k]) return seconds[k - 1] + simpson(table.integrand, volts, nodes[k - 1]);
   }
-  return volts === nodes[nodes.length - 1] ? seconds[seconds.length - 1] : Number.POSITIVE_INFINITY;
+  return Number.POSITIVE_INFINITY;
 }
 
 /** Bank voltage `seconds` after the start, or null once the discharge has passed the stop voltage. */
@@ -116,7 +116,8 @@ function panelNodes({
     const top = edges[s - 1];
     const length = top - edges[s];
     const count = Math.max(2, Math.ceil((panels * length) / span));
-    for (let i = 1; i <= count; i++) nodes.push(top - (length * i) / count);
+    // the segment's last node is its edge exactly, so the stop voltage is a node, not a rounding away
+    for (let i = 1; i <= count; i++) nodes.push(i === count ? edges[s] : top - (length * i) / count);
   }
   return nodes;
 }

@@ -25,6 +25,7 @@ export {
   harvestWatts,
   measuredVsModelled,
   selectNoChargeSamples,
+  selectChargingSamples,
   type EnergySlopeFit,
   type VoltageSample,
 } from './measured-draw';

@@ -80,6 +80,12 @@ export function selectNoChargeSamples({
   );
 }
 
+/** Readings taken while charging (the complement of selectNoChargeSamples), for harvestWatts. */
+export function selectChargingSamples(input: Parameters<typeof selectNoChargeSamples>[0]): VoltageSample[] {
+  const dark = new Set(selectNoChargeSamples(input));
+  return input.samples.filter((s) => !dark.has(s));
+}
+
 function toMs(t: Date | number): number {
   return t instanceof Date ? t.getTime() : t;
 }

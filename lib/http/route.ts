@@ -49,3 +49,19 @@ export function idParam(value: string | string[] | undefined, what: string): num
   if (!Number.isSafeInteger(id) || id <= 0 || String(id) !== String(value)) throw problems.notFound(what);
   return id;
 }
+
+/** A route open to signed-out callers (invitation accept, password reset): still Origin-checked and parsed. */
+export function publicRoute<S extends z.ZodType>(
+  opts: { body: S },
+  act: (ctx: { body: z.infer<S>; request: Request }) => Promise<Response>,
+) {
+  return async (request: Request): Promise<Response> => {
+    try {
+      assertSameOrigin(request);
+      const body = await parseJsonBody(request, opts.body);
+      return await act({ body, request });
+    } catch (error) {
+      return problemResponse(error);
+    }
+  };
+}

@@ -45,6 +45,16 @@ describe('IEC 62391-1 characterization', () => {
     expect(result.t1Seconds).toBeCloseTo(((2.7 - amps * 0.025 - 2.16) * 10) / amps, 6);
   });
 
+  it('extrapolates back to the first sample when the log clock does not start at 0 (derived here)', () => {
+    const samples = dischargeLog({ farads: 50, esrOhms: 0.04, amps: 1, ratedVolts: 2.7, stepSeconds: 0.5 }).map(
+      ([t, v]): [number, number] => [t + 3600, v],
+    );
+    const result = characterizeDischarge({ ratedVolts: 2.7, currentAmps: 1, samples });
+    expect(result.esrOhms).toBeCloseTo(0.04, 6);
+    expect(result.capacitanceFarads).toBeCloseTo(50, 6);
+    expect(result.t1Seconds).toBeCloseTo(3600 + (2.7 - 0.04 - 2.16) * 50, 6);
+  });
+
   it('names the threshold a log never crosses', () => {
     const short = dischargeLog({ farads: 10, esrOhms: 0.02, amps: 0.1, ratedVolts: 2.7, stepSeconds: 1, endVolts: 1.5 });
     expect(() => characterizeDischarge({ ratedVolts: 2.7, currentAmps: 0.1, samples: short })).toThrowError(NeverCrossesError);

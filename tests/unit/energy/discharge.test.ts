@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { buildDischargeTable, efficiencyAt, secondsAtVolts, traceDischarge, voltsAtSeconds } from '@/lib/energy';
 import type { EfficiencyPoint } from '@/lib/energy';
 
@@ -48,5 +49,14 @@ describe('hold-up time', () => {
     expect(points.at(-1)!.t).toBeCloseTo(10, 6); // derived here: 1 F·1 V / 0.1 A
     expect(points.at(-1)!.volts).toBeCloseTo(1, 6);
     expect(voltsAtSeconds({ table, seconds: 11 })).toBeNull();
+  });
+
+  it('reaches its stop voltage exactly, whatever the rounding of the panel nodes (regression)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.3, max: 2, noNaN: true }), fc.double({ min: 2.1, max: 5.4, noNaN: true }), (stop, start) => {
+        const table = buildDischargeTable({ farads: 150, fromVolts: start, downToVolts: stop, bankWattsAt: (v) => 0.005 + 1e-4 * v, breakVolts: [1.5, 0.7] });
+        return Number.isFinite(secondsAtVolts({ table, volts: stop })) && table.volts.at(-1) === stop;
+      }),
+    );
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { fitEnergySlope, harvestWatts, measuredVsModelled, selectNoChargeSamples } from '@/lib/energy';
+import { fitEnergySlope, harvestWatts, measuredVsModelled, selectChargingSamples, selectNoChargeSamples } from '@/lib/energy';
 import type { VoltageSample } from '@/lib/energy';
 import { site } from './fixtures';
 
@@ -63,5 +63,7 @@ describe('measured draw', () => {
     ];
     const kept = selectNoChargeSamples({ samples, site, panelVoltsThreshold: 1 });
     expect(kept.map((s) => s.panelVolts)).toEqual([undefined, 0.3]);
+    const charging = selectChargingSamples({ samples, site, panelVoltsThreshold: 1 });
+    expect(charging.map((s) => s.panelVolts)).toEqual([undefined, 5.5]);
   });
 });

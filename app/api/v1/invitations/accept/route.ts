@@ -1,0 +1,8 @@
+import { acceptInvitation } from '@/lib/db/queries/team';
+import { publicRoute } from '@/lib/http/route';
+import { acceptInvitationBody } from '@/lib/schemas/team';
+
+export const POST = publicRoute({ body: acceptInvitationBody }, async ({ body }) => {
+  const { email } = await acceptInvitation(body);
+  return Response.json({ email }, { status: 201 });
+});

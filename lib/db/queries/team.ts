@@ -1,0 +1,106 @@
+import { db } from '../knex';
+import { hashPassword } from '../../auth/password';
+import { hashOneTimeToken, newOneTimeToken } from '../../auth/one-time-token';
+import type { Role } from '../../auth/roles';
+import { writeAudit } from '../../audit';
+import { enqueueMail, escapeHtml } from '../../mail/outbox';
+import { problems } from '../../errors';
+import { countOwners, findMembership, normalizeEmail } from './people';
+
+const INVITATION_DAYS = 7;
+const RESET_MINUTES = 60;
+
+export async function changeRole(opts: { orgId: number; membershipId: number; role: Role; byUserId: number }) {
+  await db().transaction(async (trx) => {
+    const target = await findMembership(opts.orgId, opts.membershipId, trx);
+    if (!target) throw problems.notFound('The member');
+    if (target.role === 'owner' && opts.role !== 'owner' && (await countOwners(opts.orgId, trx)) <= 1) {
+      throw problems.conflict('The last owner cannot be demoted: make someone else an owner first.');
+    }
+    await trx('memberships').where({ id: opts.membershipId, org_id: opts.orgId }).update({ role: opts.role });
+    await writeAudit({ orgId: opts.orgId, userId: opts.byUserId, action: 'role_changed', target: target.email, detail: { from: target.role, to: opts.role } }, trx);
+  });
+}
+
+export async function removeMember(opts: { orgId: number; membershipId: number; byUserId: number }) {
+  await db().transaction(async (trx) => {
+    const target = await findMembership(opts.orgId, opts.membershipId, trx);
+    if (!target) throw problems.notFound('The member');
+    if (target.role === 'owner' && (await countOwners(opts.orgId, trx)) <= 1) {
+      throw problems.conflict('The last owner cannot be removed.');
+    }
+    await trx('memberships').where({ id: opts.membershipId, org_id: opts.orgId }).delete();
+    await writeAudit({ orgId: opts.orgId, userId: opts.byUserId, action: 'member_removed', target: target.email }, trx);
+  });
+}
+
+export async function listInvitations(orgId: number) {
+  return db()('invitations').where({ org_id: orgId }).whereNull('used_at').andWhere('expires_at', '>', new Date())
+    .select('id', 'email', 'role', 'expires_at as expiresAt', 'created_at as createdAt').orderBy('id', 'desc');
+}
+
+export async function createInvitation(opts: { orgId: number; orgName: string; email: string; role: Role; byUserId: number; appUrl: string }) {
+  const { token, sha256 } = newOneTimeToken();
+  const email = normalizeEmail(opts.email);
+  const link = `${opts.appUrl}/invitations/${token}`;
+  const expiresAt = new Date(Date.now() + INVITATION_DAYS * 86_400_000);
+  await db().transaction(async (trx) => {
+    const already = await trx('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.org_id': opts.orgId, 'u.email': email }).first('m.id');
+    if (already) throw problems.conflict('That person is already a member.');
+    await trx('invitations').insert({ org_id: opts.orgId, email, role: opts.role, token_sha256: sha256, invited_by: opts.byUserId, expires_at: expiresAt });
+    await enqueueMail(trx, {
+      orgId: opts.orgId, purpose: 'invitation', to: email,
+      subject: `You are invited to ${opts.orgName} on Duskwatch`,
+      text: `You have been invited to join ${opts.orgName} on Duskwatch as ${opts.role}.\n\nSet your password here (the link works once, for ${INVITATION_DAYS} days):\n${link}\n`,
+      html: `<p>You have been invited to join <strong>${escapeHtml(opts.orgName)}</strong> on Duskwatch as ${opts.role}.</p><p><a href="${escapeHtml(link)}">Set your password</a> (the link works once, for ${INVITATION_DAYS} days).</p>`,
+    });
+    await writeAudit({ orgId: opts.orgId, userId: opts.byUserId, action: 'invitation_created', target: email, detail: { role: opts.role } }, trx);
+  });
+  return { link, expiresAt };
+}
+
+/** Accepting creates the account (or adds the membership to an existing one) exactly once. */
+export async function acceptInvitation(opts: { token: string; name: string; password: string }) {
+  const hash = await hashPassword(opts.password);
+  return db().transaction(async (trx) => {
+    const inv = await trx('invitations').where({ token_sha256: hashOneTimeToken(opts.token) }).forUpdate().first();
+    if (!inv || inv.used_at || new Date(inv.expires_at) <= new Date()) throw problems.notFound('This invitation link (used, expired or unknown)');
+    let user = await trx('users').where({ email: inv.email }).first('id', 'password_hash');
+    if (!user) {
+      const [id] = await trx('users').insert({ email: inv.email, name: opts.name, password_hash: hash, password_changed_at: new Date() });
+      user = { id };
+    }
+    await trx('memberships').insert({ org_id: inv.org_id, user_id: user.id, role: inv.role }).onConflict(['org_id', 'user_id']).merge({ role: inv.role });
+    await trx('invitations').where({ id: inv.id }).update({ used_at: new Date() });
+    await writeAudit({ orgId: inv.org_id, userId: user.id, action: 'invitation_accepted', target: inv.email }, trx);
+    return { email: inv.email as string };
+  });
+}
+
+/** Always the same answer to the caller, known e-mail or not. */
+export async function requestPasswordReset(opts: { email: string; appUrl: string; ip: string }) {
+  const user = await db()('users').where({ email: normalizeEmail(opts.email) }).first('id', 'email');
+  if (!user) return;
+  const { token, sha256 } = newOneTimeToken();
+  const link = `${opts.appUrl}/reset-password/${token}`;
+  await db().transaction(async (trx) => {
+    await trx('password_resets').insert({ user_id: user.id, token_sha256: sha256, expires_at: new Date(Date.now() + RESET_MINUTES * 60_000) });
+    await enqueueMail(trx, {
+      orgId: null, purpose: 'password_reset', to: user.email, subject: 'Reset your Duskwatch password',
+      text: `Someone asked to reset the password of this account. If it was you, set a new one here (the link works once, for ${RESET_MINUTES} minutes):\n${link}\n\nIf it was not you, ignore this message.\n`,
+      html: `<p>Someone asked to reset the password of this account. If it was you, <a href="${escapeHtml(link)}">set a new password</a> (the link works once, for ${RESET_MINUTES} minutes).</p><p>If it was not you, ignore this message.</p>`,
+    });
+    await writeAudit({ userId: user.id, action: 'password_reset_requested', target: user.email, ip: opts.ip }, trx);
+  });
+}
+
+export async function confirmPasswordReset(opts: { token: string; password: string }) {
+  const hash = await hashPassword(opts.password);
+  await db().transaction(async (trx) => {
+    const reset = await trx('password_resets').where({ token_sha256: hashOneTimeToken(opts.token) }).forUpdate().first();
+    if (!reset || reset.used_at || new Date(reset.expires_at) <= new Date()) throw problems.notFound('This reset link (used, expired or unknown)');
+    await trx('users').where({ id: reset.user_id }).update({ password_hash: hash, password_changed_at: new Date() });
+    await trx('password_resets').where({ id: reset.id }).update({ used_at: new Date() });
+    await writeAudit({ userId: reset.user_id, action: 'password_changed' }, trx);
+  });
+}

@@ -1,0 +1,17 @@
+import { z } from 'zod';
+import { passwordSchema } from '../auth/password';
+import { ROLES } from '../auth/roles';
+
+// Shared by the team forms and their route handlers: the form shows the server's words.
+export const roleSchema = z.enum(ROLES, { message: 'Choose owner, deployer or viewer.' });
+export const emailSchema = z.string().trim().toLowerCase().email('Enter a valid e-mail address.').max(254);
+
+export const changeRoleBody = z.object({ role: roleSchema }).strict();
+export const inviteBody = z.object({ email: emailSchema, role: roleSchema }).strict();
+export const acceptInvitationBody = z.object({
+  token: z.string().min(20).max(200),
+  name: z.string().trim().min(1, 'Enter your name.').max(200).regex(/^[^\r\n]*$/, 'Use one line.'),
+  password: passwordSchema,
+}).strict();
+export const resetRequestBody = z.object({ email: emailSchema }).strict();
+export const resetConfirmBody = z.object({ token: z.string().min(20).max(200), password: passwordSchema }).strict();
