@@ -17,6 +17,8 @@ const csp = [
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
+  // Parallel test stacks build into their own folder (db/lifecycle/profile.ts).
+  distDir: process.env.NEXT_DIST_DIR || '.next',
   poweredByHeader: false,
   reactStrictMode: true,
   serverExternalPackages: ['knex', 'mysql2', 'nodemailer', 'bcryptjs'],

@@ -14,7 +14,7 @@ async function main() {
 
   await prepareDatabase(profile);
   await seedDemoIfEmpty(profile);
-  buildAppIfStale(profile.root);
+  buildAppIfStale(profile.root, profile.distDir);
 
   const group = new ProcessGroup(path.join(profile.dataDir, 'logs'));
   const tsx = binPath(profile.root, 'tsx');

@@ -16,6 +16,8 @@ export interface Profile {
   appPort: number;
   smtpPort: number;
   mailDir: string;
+  /** Next's build folder: separate per test slot so parallel builds never collide. */
+  distDir: string;
 }
 
 const PORTS: Record<ProfileName, { db: number; app: number; smtp: number }> = {
@@ -23,18 +25,25 @@ const PORTS: Record<ProfileName, { db: number; app: number; smtp: number }> = {
   test: { db: 3317, app: 3100, smtp: 2626 },
 };
 
-export function resolveProfile(name: ProfileName, root = process.cwd()): Profile {
-  const dataDir = path.join(root, '.data', name);
+/**
+ * `slot` lets several test stacks run side by side on one machine (each its own data dir,
+ * ports and build folder): DUSKWATCH_TEST_SLOT=N for N ≥ 1. Slot 0 is the usual one.
+ */
+export function resolveProfile(name: ProfileName, root = process.cwd(), slot = 0): Profile {
+  const suffix = name === 'test' && slot > 0 ? `-${slot}` : '';
+  const dataDir = path.join(root, '.data', name + suffix);
+  const offset = name === 'test' ? slot * 10 : 0;
   return {
     name,
     root,
     dataDir,
     mysqlDir: path.join(dataDir, 'mysql'),
     socketPath: path.join(dataDir, 'mysqld.sock'),
-    dbPort: PORTS[name].db,
+    dbPort: PORTS[name].db + offset,
     dbName: name === 'demo' ? 'duskwatch' : 'duskwatch_test',
-    appPort: PORTS[name].app,
-    smtpPort: PORTS[name].smtp,
+    appPort: PORTS[name].app + offset,
+    smtpPort: PORTS[name].smtp + offset,
+    distDir: suffix ? `.next-test${suffix}` : '.next',
     // The demo's catcher writes where the README says: .data/mail/.
     mailDir: name === 'demo' ? path.join(root, '.data', 'mail') : path.join(dataDir, 'mail'),
   };
@@ -79,5 +88,11 @@ export function profileEnv(profile: Profile): Record<string, string> {
     SMTP_PORT: String(profile.smtpPort),
     MAIL_DIR: profile.mailDir,
     UPLOAD_DIR: path.join(profile.dataDir, 'uploads'),
+    NEXT_DIST_DIR: profile.distDir,
   };
+}
+
+/** The test profile of this process (npm test sets DUSKWATCH_TEST_SLOT when it is not 0). */
+export function currentTestProfile(root = process.cwd()): Profile {
+  return resolveProfile('test', root, Number(process.env.DUSKWATCH_TEST_SLOT ?? 0) || 0);
 }

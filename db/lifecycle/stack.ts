@@ -35,8 +35,8 @@ function newestMtime(dir: string): number {
 }
 
 /** Builds the Next app when a source is newer than the last build. */
-export function buildAppIfStale(root: string): void {
-  const buildId = path.join(root, '.next', 'BUILD_ID');
+export function buildAppIfStale(root: string, distDir = '.next'): void {
+  const buildId = path.join(root, distDir, 'BUILD_ID');
   const sources = ['app', 'components', 'lib', 'public'].map((d) => path.join(root, d)).filter(existsSync);
   const extra = ['next.config.mjs', 'tailwind.config.ts', 'package-lock.json', 'proxy.ts'].map((f) => path.join(root, f)).filter(existsSync);
   const newestSource = Math.max(...sources.map(newestMtime), ...extra.map((f) => statSync(f).mtimeMs));
@@ -48,7 +48,7 @@ export function buildAppIfStale(root: string): void {
   const r = spawnSync(path.join(root, 'node_modules', '.bin', 'next'), ['build'], {
     cwd: root,
     stdio: 'inherit',
-    env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1' },
+    env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: distDir },
   });
   if (r.status !== 0) throw new Error('next build failed');
 }

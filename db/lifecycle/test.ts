@@ -4,7 +4,7 @@ import path from 'node:path';
 import { ensureChromium } from './chromium';
 import { stopMariadb } from './mariadb';
 import { ProcessGroup, waitForHttp } from './processes';
-import { profileEnv, resolveProfile } from './profile';
+import { currentTestProfile, profileEnv } from './profile';
 import { binPath, buildAppIfStale, prepareDatabase } from './stack';
 import { seedDemoIfEmpty } from '../seeds/demo-seed';
 
@@ -13,7 +13,7 @@ import { seedDemoIfEmpty } from '../seeds/demo-seed';
  * recreated each run), then every vitest project. Prints one line "N passed, N failed".
  */
 async function main() {
-  const profile = resolveProfile('test');
+  const profile = currentTestProfile();
   const env = profileEnv(profile);
   Object.assign(process.env, env);
   const reportFile = path.join(profile.dataDir, 'vitest-report.json');
@@ -22,7 +22,7 @@ async function main() {
 
   await prepareDatabase(profile, { fresh: true });
   await seedDemoIfEmpty(profile);
-  buildAppIfStale(profile.root);
+  buildAppIfStale(profile.root, profile.distDir);
   ensureChromium();
 
   const group = new ProcessGroup(path.join(profile.dataDir, 'logs'));

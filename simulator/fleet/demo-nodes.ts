@@ -75,7 +75,7 @@ export const demoNodes: DemoNode[] = [
     config: { bank: makeBank({ cell: CELL_50F }) } }),
   node({ slug: 'mp-stage-2', name: 'MP-stage-2', siteSlug: 'mill-pond-outlet', kind: 'stream-level', intendedState: 'thin',
     story: 'Panel under conifers and caked with dirt: the bank never fills in December.', rssiDbm: -75,
-    hidden: { shadingFactor: 0.3, dirtFactor: 0.4 },
+    hidden: { shadingFactor: 0.22, dirtFactor: 0.4 },
     config: { bank: makeBank({ cell: CELL_50F }) } }),
   node({ slug: 'um-piezo-1', name: 'UM-piezo-1', siteSlug: 'upper-meadow-piezometer', kind: 'groundwater-level', intendedState: 'short',
     story: 'Firmware stuck awake since midday (a sensor time-out loop): the bank is sinking fast.', rssiDbm: -66,

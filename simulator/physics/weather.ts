@@ -55,7 +55,7 @@ export function createWeather({ seed, lonDeg = 0, forcedSpells = [] }: { seed: n
     const u = randomAt(hashSeed(seed, 99), hour);
     if (kind === 0) return 0.9 + 0.1 * u;
     if (kind === 1) return 0.3 + 0.6 * u;
-    return 0.08 + 0.17 * u;
+    return 0.12 + 0.08 * u;
   }
 
   return { getSkyKind: (at) => KINDS[kindIndexAt(at)], getCloudFactor };

@@ -2,10 +2,10 @@ import knexFactory from 'knex';
 import { describe, expect, it } from 'vitest';
 import { migratorConfig as migrationSettings } from '@/db/lifecycle/migration-source';
 import { rootConnectionConfig } from '@/db/lifecycle/mariadb';
-import { resolveProfile } from '@/db/lifecycle/profile';
+import { currentTestProfile } from '@/db/lifecycle/profile';
 import { rootKnex } from '@/db/lifecycle/stack';
 
-const profile = resolveProfile('test');
+const profile = currentTestProfile();
 
 describe('migrations', () => {
   it('are already applied to the test database, and running them again changes nothing', async () => {

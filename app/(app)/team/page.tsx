@@ -1,0 +1,42 @@
+import type { Metadata } from 'next';
+import { redirect } from 'next/navigation';
+import { InviteForm } from '@/components/team/invite-form';
+import { MemberRow } from '@/components/team/member-row';
+import { currentMember } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/roles';
+import { listMembersOfOrg } from '@/lib/db/queries/people';
+import { listInvitations } from '@/lib/db/queries/team';
+import { formatInTimeZone } from '@/lib/format/time';
+
+export const metadata: Metadata = { title: 'Team' };
+
+export default async function TeamPage() {
+  const member = await currentMember();
+  if (!member) redirect('/sign-in');
+  if (!can(member.role, 'team:manage')) {
+    return <p className="text-ink-muted">Only owners manage the team. Ask an owner of {member.orgName} to change roles or invite people.</p>;
+  }
+  const [members, invitations] = await Promise.all([listMembersOfOrg(member.orgId), listInvitations(member.orgId)]);
+  return (
+    <section className="grid gap-8 lg:grid-cols-[3fr_2fr]">
+      <div>
+        <h1 className="text-2xl font-bold">Team</h1>
+        <p className="mt-1 text-sm text-ink-muted">Role changes and removals take effect on the member&apos;s next request.</p>
+        <ul className="mt-4" aria-label="Members">
+          {members.map((m) => <MemberRow key={m.membershipId} member={m} isSelf={m.userId === member.userId} />)}
+        </ul>
+        {invitations.length ? (
+          <>
+            <h2 className="mt-8 font-bold">Open invitations</h2>
+            <ul className="mt-2 text-sm text-ink-muted">
+              {invitations.map((i: { id: number; email: string; role: string; expiresAt: Date }) => (
+                <li key={i.id} className="border-t border-dusk-800 py-2">{i.email} as {i.role}, until <span className="figures">{formatInTimeZone(new Date(i.expiresAt), 'UTC', 'yyyy-MM-dd HH:mm')}</span></li>
+              ))}
+            </ul>
+          </>
+        ) : null}
+      </div>
+      <InviteForm />
+    </section>
+  );
+}

@@ -1,0 +1,34 @@
+/** Browser-side calls to our API; problem+json answers come back as field errors. */
+export interface Problem {
+  title: string;
+  status: number;
+  detail?: string;
+  errors?: { pointer: string; detail: string }[];
+}
+
+export type ApiResult<T> = { ok: true; data: T } | { ok: false; problem: Problem };
+
+export async function apiFetch<T = unknown>(path: string, init: { method?: string; body?: unknown } = {}): Promise<ApiResult<T>> {
+  let res: Response;
+  try {
+    res = await fetch(path, {
+      method: init.method ?? 'GET',
+      headers: init.body === undefined ? undefined : { 'content-type': 'application/json' },
+      body: init.body === undefined ? undefined : JSON.stringify(init.body),
+      credentials: 'same-origin',
+    });
+  } catch {
+    return { ok: false, problem: { title: 'Network error', status: 0, detail: 'The server could not be reached. Check the connection and try again.' } };
+  }
+  if (res.status === 204) return { ok: true, data: undefined as T };
+  const body = await res.json().catch(() => null);
+  if (res.ok) return { ok: true, data: body as T };
+  return { ok: false, problem: (body as Problem) ?? { title: res.statusText, status: res.status } };
+}
+
+/** Errors by field name (the last pointer segment joined with dots), plus a general message. */
+export function fieldErrors(problem: Problem): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const e of problem.errors ?? []) out[e.pointer.replace(/^\//, '').replace(/\//g, '.') || '_'] = e.detail;
+  return out;
+}
