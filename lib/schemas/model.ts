@@ -75,3 +75,6 @@ const snake = (name: string) => name.replace(/[A-Z]/g, (c) => `_${c.toLowerCase(
 export function crossFieldProblems(specs: Parameters<typeof checkNodeSpecs>[0], prefix = ''): InvalidParam[] {
   return checkNodeSpecs(specs).map((p) => ({ pointer: prefix + '/' + p.path.map(snake).join('/'), detail: p.message }));
 }
+
+// The unit-named number builders, for the other wire schemas (evaluate, bench, planner).
+export { finite as finiteNumber, positive as positiveNumber, nonNegative as nonNegativeNumber };

@@ -13,7 +13,8 @@ export default async function FleetPage() {
     (a, b) => NODE_STATE_INFO[a.state].riskRank - NODE_STATE_INFO[b.state].riskRank || (a.margin ?? 99) - (b.margin ?? 99),
   );
   const counts = Object.fromEntries(NODE_STATES.map((s) => [s, fleet.filter((n) => n.state === s).length]));
-  const earliest = fleet.filter((n) => n.brownoutAt).sort((a, b) => +a.brownoutAt! - +b.brownoutAt!)[0];
+  // Only nodes still reporting: a dark node's projected brownout is already behind it.
+  const earliest = fleet.filter((n) => n.brownoutAt && (n.state === 'short' || n.state === 'thin')).sort((a, b) => +a.brownoutAt! - +b.brownoutAt!)[0];
 
   return (
     <section>
