@@ -1,6 +1,7 @@
 // Public surface of the simulator's physics (independent of lib/energy on purpose: it checks it).
 export * from './types';
 export { SimNode, type SimNodeOptions, type SimStepResult } from './node';
+export { makeSimReading } from './reading';
 export { simulateNode, simulateDischargeUntilBrownout, type SimulateNodeOptions, type SimulateNodeResult } from './simulate';
 export { createBankPhysics, getStoredJoules, applyJoules, type BankPhysics } from './bank';
 export { getEfficiency, solveTerminal } from './converter';

@@ -2,7 +2,8 @@ import { applyJoules, createBankPhysics, type BankPhysics } from './bank';
 import { runReportCycle } from './burst';
 import { getEfficiency } from './converter';
 import { createRandom, hashSeed } from './prng';
-import { getClearSkyIrradiance, getPanelVolts, getSunElevationRadians } from './sun';
+import { makeSimReading } from './reading';
+import { getClearSkyIrradiance, getSunElevationRadians } from './sun';
 import { DEFAULT_FAULTS, type SimFaults, type SimNodeSpec, type SimNodeState, type SimReading } from './types';
 import { createWeather, type Weather } from './weather';
 
@@ -137,7 +138,9 @@ export class SimNode {
       this.undelivered += 1;
       return;
     }
-    result.readings.push(this.makeReading({ at, restingVolts }));
+    result.readings.push(makeSimReading({
+      spec: this.spec, at, restingVolts, seq: this.seq, irradiance: this.getPanelIrradiance(at), random: this.random,
+    }));
   }
 
   private goDark({ at, result }: { at: Date; result: SimStepResult }): void {
@@ -154,24 +157,5 @@ export class SimNode {
     // letting the bank recover (common practice); otherwise it would reboot-loop at dawn.
     this.nextReportMs = at.getTime() + this.intervalSeconds * 1000;
     result.restarts.push(at);
-  }
-
-  private makeReading({ at, restingVolts }: { at: Date; restingVolts: number }): SimReading {
-    const { site, panel, calibration, rssiDbm } = this.spec;
-    const measured = restingVolts + (this.random() * 2 - 1) * 0.002;
-    // The device posts raw volts; the server's calibration (true = gain·raw + offset) undoes this.
-    const raw = calibration ? (measured - calibration.offsetVolts) / calibration.gain : measured;
-    const solarHour = ((at.getTime() / 3_600_000 + site.lonDeg / 15) % 24 + 24) % 24;
-    const temp = (site.meanTempC ?? 0) + (site.tempSwingC ?? 4) * Math.cos((2 * Math.PI * (solarHour - 15)) / 24)
-      + (this.random() - 0.5) * 0.6;
-    const vp = getPanelVolts({ irradiance: this.getPanelIrradiance(at), openCircuitVolts: panel.openCircuitVolts });
-    return {
-      t: at,
-      v: Math.round(raw * 1000) / 1000,
-      vp: Math.round(vp * 100) / 100,
-      temp: Math.round(temp * 10) / 10,
-      rssi: Math.round((rssiDbm ?? -70) + (this.random() - 0.5) * 6),
-      seq: this.seq,
-    };
   }
 }

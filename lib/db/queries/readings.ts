@@ -1,0 +1,42 @@
+import type { Knex } from 'knex';
+import { db } from '../knex';
+import type { NormalizedReading } from '../../ingest/normalize';
+
+/**
+ * Stores a batch for one node, all or nothing. A reading whose (node, t) is already stored —
+ * or appears twice in the batch — is a duplicate: counted, never stored twice. Not INSERT
+ * IGNORE, which would also swallow real errors and coerce bad values.
+ */
+export async function storeReadings(nodeId: number, readings: NormalizedReading[], knex: Knex = db()): Promise<{ accepted: number; duplicates: number; stored: NormalizedReading[] }> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await knex.transaction(async (trx) => insertNew(trx, nodeId, readings));
+    } catch (e) {
+      // A concurrent post of the same reading won the race: on retry it is a duplicate.
+      if ((e as { code?: string }).code === 'ER_DUP_ENTRY' && attempt < 2) continue;
+      throw e;
+    }
+  }
+}
+
+async function insertNew(trx: Knex.Transaction, nodeId: number, readings: NormalizedReading[]) {
+  const unique = new Map<number, NormalizedReading>();
+  for (const r of readings) if (!unique.has(r.t.getTime())) unique.set(r.t.getTime(), r);
+  const times = [...unique.values()].map((r) => r.t);
+  const existing = new Set<number>();
+  for (let i = 0; i < times.length; i += 500) {
+    const rows = await trx('readings').where('node_id', nodeId).whereIn('t', times.slice(i, i + 500)).select('t');
+    for (const row of rows) existing.add(new Date(row.t).getTime());
+  }
+  const fresh = [...unique.values()].filter((r) => !existing.has(r.t.getTime()));
+  for (let i = 0; i < fresh.length; i += 500) {
+    await trx('readings').insert(
+      fresh.slice(i, i + 500).map((r) => ({ node_id: nodeId, t: r.t, v: r.v, vp: r.vp, temp_c: r.temp, rssi_dbm: r.rssi, seq: r.seq })),
+    );
+  }
+  return { accepted: fresh.length, duplicates: readings.length - fresh.length, stored: fresh };
+}
+
+export async function latestReading(nodeId: number, knex: Knex | Knex.Transaction = db()) {
+  return knex('readings').where({ node_id: nodeId }).orderBy('t', 'desc').first('t', 'v', 'vp');
+}

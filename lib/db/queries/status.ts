@@ -1,0 +1,32 @@
+import type { Knex } from 'knex';
+import { db } from '../knex';
+import { deriveNodeStatus, type DerivedStatus } from '../../status/derive-status';
+import { calibratedVolts, modelSpecFromRows, type NodeRow, type SiteRow } from '../../status/node-spec';
+import { latestReading } from './readings';
+
+/** Loads what the model needs for one node: its row, its site, its organization's thresholds. */
+export async function loadNodeForModel(nodeId: number, knex: Knex | Knex.Transaction = db()) {
+  const row = await knex('nodes as n')
+    .join('sites as s', 's.id', 'n.site_id')
+    .join('organizations as o', 'o.id', 'n.org_id')
+    .where('n.id', nodeId)
+    .first('n.*', 's.lat', 's.lon', 's.time_zone', 's.recharge_elevation_deg', 'o.steady_margin', 'o.thin_margin');
+  if (!row) return null;
+  const site: SiteRow = { id: row.site_id, lat: row.lat, lon: row.lon, time_zone: row.time_zone, recharge_elevation_deg: row.recharge_elevation_deg };
+  return { node: row as NodeRow, site, thresholds: { steady: row.steady_margin as number, thin: row.thin_margin as number } };
+}
+
+/** Recomputes and stores a node's latest status from its latest reading. */
+export async function refreshNodeStatus(nodeId: number, now = new Date(), knex: Knex | Knex.Transaction = db()): Promise<DerivedStatus | null> {
+  const loaded = await loadNodeForModel(nodeId, knex);
+  if (!loaded) return null;
+  const last = await latestReading(nodeId, knex);
+  const status = deriveNodeStatus({
+    spec: modelSpecFromRows(loaded.node, loaded.site),
+    latest: last ? { t: new Date(last.t), volts: calibratedVolts(loaded.node, last.v), panelVolts: last.vp } : null,
+    now,
+    thresholds: loaded.thresholds,
+  });
+  await knex('node_status').insert({ node_id: nodeId, org_id: loaded.node.org_id, ...status }).onConflict('node_id').merge();
+  return status;
+}

@@ -1,0 +1,82 @@
+import { problems, type InvalidParam } from '../errors';
+import { MAX_BODY_BYTES, MAX_READINGS_PER_POST, batchSchema } from '../schemas/reading';
+import { csvLineToObject, parseCsvHeader } from './csv';
+import { normalizeReading, type NormalizedReading } from './normalize';
+
+/** Reads at most `maxBytes` of the body, refusing more without buffering it (413). */
+export async function readBodyLimited(request: Request, maxBytes = MAX_BODY_BYTES): Promise<string> {
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (declared > maxBytes) throw problems.tooLarge(`The body is over ${maxBytes / 1024} KiB; send smaller batches.`);
+  if (!request.body) return '';
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel();
+      throw problems.tooLarge(`The body is over ${maxBytes / 1024} KiB; send smaller batches.`);
+    }
+    chunks.push(value);
+  }
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(Buffer.concat(chunks));
+  } catch {
+    throw problems.badRequest('The body is not valid UTF-8.');
+  }
+}
+
+function mediaType(request: Request): string {
+  return (request.headers.get('content-type') ?? '').split(';')[0].trim().toLowerCase();
+}
+
+/** The whole post, validated: every reading or a 4xx problem. Nothing is stored here. */
+export async function parseIngestBody(request: Request, receivedAt: Date): Promise<NormalizedReading[]> {
+  const type = mediaType(request);
+  if (type !== 'application/json' && type !== 'text/csv') throw problems.unsupportedMedia('Send application/json or text/csv.');
+  const text = await readBodyLimited(request);
+  const items = type === 'application/json' ? jsonItems(text) : csvItems(text);
+  if (items.length > MAX_READINGS_PER_POST) throw problems.tooLarge(`At most ${MAX_READINGS_PER_POST} readings a post; this one has ${items.length}.`);
+  const readings: NormalizedReading[] = [];
+  const bad: InvalidParam[] = [];
+  items.forEach(({ raw, pointer, error }) => {
+    if (error) return bad.push({ pointer, detail: error });
+    const { reading, problems: p } = normalizeReading(raw, pointer, receivedAt);
+    if (reading) readings.push(reading);
+    bad.push(...p);
+  });
+  if (bad.length) throw problems.invalid(bad, 'Nothing was stored: fix these readings and send the batch again.');
+  return readings;
+}
+
+type Item = { raw?: unknown; pointer: string; error?: string };
+
+function jsonItems(text: string): Item[] {
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch {
+    throw problems.badRequest('The body is not valid JSON.');
+  }
+  if (body === null || typeof body !== 'object' || Array.isArray(body)) throw problems.badRequest('Send one reading object, or {"readings": [...]}.');
+  if (!('readings' in body)) return [{ raw: body, pointer: '' }];
+  const batch = batchSchema.safeParse(body);
+  if (!batch.success) throw problems.invalid(batch.error.issues.map((i) => ({ pointer: '/' + i.path.join('/'), detail: i.message })));
+  if (batch.data.readings.length > MAX_READINGS_PER_POST) return batch.data.readings.map(() => ({ pointer: '' })); // caller answers 413
+  return batch.data.readings.map((raw, i) => ({ raw, pointer: `/readings/${i}` }));
+}
+
+function csvItems(text: string): Item[] {
+  const lines = text.split(/\r?\n/);
+  while (lines.length && lines[lines.length - 1].trim() === '') lines.pop();
+  if (lines.length < 2) throw problems.badRequest('CSV needs a header line and at least one reading.');
+  const header = parseCsvHeader(lines[0]);
+  if ('error' in header) throw problems.badRequest(header.error);
+  return lines.slice(1).map((line, i) => {
+    const pointer = `/readings/${i}`; // line i + 2 of the file
+    const obj = csvLineToObject(header.fields, line);
+    return 'error' in obj ? { pointer, error: `Line ${i + 2}: ${obj.error}` } : { raw: obj, pointer };
+  });
+}
