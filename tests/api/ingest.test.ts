@@ -1,0 +1,153 @@
+import { SignJWT } from 'jose';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, db } from '@/lib/db/knex';
+import { api } from './helpers/stack';
+import { createTestNode } from './helpers/fleet';
+
+afterAll(closeDb);
+
+let node: Awaited<ReturnType<typeof createTestNode>>;
+let other: Awaited<ReturnType<typeof createTestNode>>;
+beforeAll(async () => {
+  node = await createTestNode('ingest');
+  other = await createTestNode('ingest-other');
+});
+
+const post = (token: string | null, body: unknown, type = 'application/json') => {
+  const req = api().post('/api/v1/readings').set('content-type', type);
+  if (token) req.set('authorization', `Bearer ${token}`);
+  return req.send(typeof body === 'string' ? body : JSON.stringify(body));
+};
+const iso = (secondsAgo: number) => new Date(Date.now() - secondsAgo * 1000).toISOString();
+const stored = async (nodeId: number) => Number((await db()('readings').where({ node_id: nodeId }).count({ n: '*' }))[0].n);
+const isProblem = (res: { headers: Record<string, string>; body: { status?: number } }, status: number) => {
+  expect(res.headers['content-type']).toContain('application/problem+json');
+  expect(res.body.status).toBe(status);
+};
+
+describe('POST /api/v1/readings (DESIGN.md §5)', () => {
+  it('accepts one reading and answers accepted, duplicates, state and next_report_s', async () => {
+    const res = await post(node.token, { t: iso(600), v: 4.91, seq: 1, vp: 0.1, temp: -2.5, rssi: -67 });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ accepted: 1, duplicates: 0 });
+    expect(['steady', 'thin', 'short', 'dark', 'silent', 'new']).toContain(res.body.state);
+    expect(Number.isInteger(res.body.next_report_s)).toBe(true);
+    expect(res.body.next_report_s).toBeGreaterThan(0);
+  });
+
+  it('accepts a batch and Unix-seconds times, and counts a repeat as a duplicate stored once', async () => {
+    const before = await stored(node.nodeId);
+    const batch = { readings: [{ t: Math.floor(Date.now() / 1000) - 500, v: 4.9 }, { t: iso(400), v: 4.89 }, { t: iso(400), v: 4.89 }] };
+    const first = await post(node.token, batch);
+    expect(first.status).toBe(200);
+    expect(first.body).toMatchObject({ accepted: 2, duplicates: 1 });
+    const again = await post(node.token, batch);
+    expect(again.body).toMatchObject({ accepted: 0, duplicates: 3 });
+    expect(await stored(node.nodeId)).toBe(before + 2);
+  });
+
+  it('accepts text/csv with a header line', async () => {
+    const csv = `t,v,vp\n${iso(300)},4.88,0\n${iso(290)},4.87,\n`;
+    const res = await post(node.token, csv, 'text/csv');
+    expect(res.status).toBe(200);
+    expect(res.body.accepted).toBe(2);
+  });
+
+  it('stores the time received when t is absent', async () => {
+    const res = await post(node.token, { v: 4.86 });
+    expect(res.status).toBe(200);
+    const last = await db()('readings').where({ node_id: node.nodeId }).orderBy('t', 'desc').first('t');
+    expect(Math.abs(new Date(last.t).getTime() - Date.now())).toBeLessThan(60_000);
+  });
+
+  it('stores nothing of a batch with one bad item, and points at it (422)', async () => {
+    const before = await stored(node.nodeId);
+    const res = await post(node.token, { readings: [{ t: iso(200), v: 4.8 }, { t: iso(190), v: 'high' }, { t: iso(180), v: 4.7, colour: 'red' }] });
+    expect(res.status).toBe(422);
+    isProblem(res, 422);
+    const pointers = res.body.errors.map((e: { pointer: string }) => e.pointer);
+    expect(pointers).toContain('/readings/1/v');
+    expect(pointers.some((p: string) => p.startsWith('/readings/2'))).toBe(true);
+    expect(await stored(node.nodeId)).toBe(before);
+  });
+
+  it('refuses times more than 5 minutes ahead or older than 400 days', async () => {
+    const ahead = await post(node.token, { t: new Date(Date.now() + 10 * 60_000).toISOString(), v: 4.8 });
+    const old = await post(node.token, { t: new Date(Date.now() - 401 * 86_400_000).toISOString(), v: 4.8 });
+    expect(ahead.status).toBe(422);
+    expect(old.status).toBe(422);
+    expect(ahead.body.errors[0].pointer).toBe('/t');
+  });
+
+  it('answers 400 to malformed JSON and to a body that is not a reading', async () => {
+    isProblem(await post(node.token, '{"v": 4.8', 'application/json'), 400);
+    isProblem(await post(node.token, '[1,2,3]', 'application/json'), 400);
+  });
+
+  it('answers 415 to other media types', async () => {
+    isProblem(await post(node.token, 'v=4.8', 'application/x-www-form-urlencoded'), 415);
+  });
+
+  it('answers 413 over 1000 readings and over 256 KiB', async () => {
+    const many = { readings: Array.from({ length: 1001 }, (_, i) => ({ t: iso(3000 + i), v: 4.5 })) };
+    isProblem(await post(node.token, many), 413);
+    const big = JSON.stringify({ v: 4.8, pad: 'x'.repeat(300 * 1024) });
+    isProblem(await post(node.token, big), 413);
+  });
+
+  it('answers 401 with WWW-Authenticate for missing, malformed, forged and alg:none tokens', async () => {
+    const forged = await new SignJWT({}).setProtectedHeader({ alg: 'HS256' }).setSubject(String(node.nodeId)).setJti('0'.repeat(32))
+      .setIssuer('duskwatch').setAudience('duskwatch:ingest').sign(new TextEncoder().encode('not-the-server-secret-not-the-server-secret'));
+    const [h, p] = node.token.split('.');
+    const none = `${Buffer.from(JSON.stringify({ alg: 'none', typ: 'JWT' })).toString('base64url')}.${p}.`;
+    const hs512Header = Buffer.from(JSON.stringify({ alg: 'HS512', typ: 'JWT' })).toString('base64url');
+    for (const token of [null, 'not-a-jwt', forged, none, `${hs512Header}.${p}.${node.token.split('.')[2]}`, `${h}.${p}.AAAA`]) {
+      const res = await post(token, { v: 4.8 });
+      expect(res.status, String(token)).toBe(401);
+      expect(res.headers['www-authenticate']).toMatch(/^Bearer/);
+      isProblem(res, 401);
+    }
+  });
+
+  it('takes the node from the token: a token for node A cannot write node B', async () => {
+    const before = await stored(other.nodeId);
+    const res = await post(node.token, { v: 4.8, node: other.nodeId });
+    expect(res.status).toBe(422); // unknown field
+    const ok = await post(node.token, { t: iso(100), v: 4.8 });
+    expect(ok.status).toBe(200);
+    expect(await stored(other.nodeId)).toBe(before);
+  });
+
+  it('refuses a revoked token on the very next request', async () => {
+    const fresh = await createTestNode('ingest-revoke');
+    expect((await post(fresh.token, { v: 4.8 })).status).toBe(200);
+    const revoke = await fresh.session.agent.delete(`/api/v1/nodes/${fresh.nodeId}/credentials/${fresh.credentialId}`).set('origin', fresh.session.origin);
+    expect(revoke.status).toBe(204);
+    isProblem(await post(fresh.token, { v: 4.8 }), 401);
+  });
+
+  it('refuses a token whose node was deleted', async () => {
+    const fresh = await createTestNode('ingest-deleted');
+    const del = await fresh.session.agent.delete(`/api/v1/nodes/${fresh.nodeId}`).set('origin', fresh.session.origin);
+    expect(del.status).toBe(204);
+    isProblem(await post(fresh.token, { v: 4.8 }), 401);
+  });
+
+  it('answers 429 with Retry-After when one node posts far too fast', async () => {
+    const fast = await createTestNode('ingest-fast');
+    let limited: { status: number; headers: Record<string, string> } | undefined;
+    for (let i = 0; i < 80 && !limited; i++) {
+      const res = await post(fast.token, { t: iso(1000 - i), v: 4.8 });
+      if (res.status === 429) limited = res;
+    }
+    expect(limited?.status).toBe(429);
+    expect(Number(limited?.headers['retry-after'])).toBeGreaterThan(0);
+  });
+
+  it('never stores a device token: only the credential id', async () => {
+    const rows = await db()('device_credentials').select('*');
+    const text = JSON.stringify(rows);
+    expect(text).not.toContain(node.token);
+    expect(text).not.toContain(node.token.split('.')[2]);
+  });
+});
