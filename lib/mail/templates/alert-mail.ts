@@ -1,0 +1,100 @@
+import { KIND_INFO, DRAW_ANOMALY_RATIO, type AlertKind } from '../../alerts/kinds';
+import type { AlertDetail } from '../../alerts/rules';
+import { escapeHtml, oneLine } from '../outbox';
+import { formatMargin, formatMilliwatts, htmlList, htmlRows, localTime, nodeLink, textRows } from './parts';
+
+/**
+ * The e-mail of one alert: what is wrong, when it bites in the site's own time, the likely
+ * cause from measured vs modelled draw, what to do, and a link to the node page. Names come
+ * from users: the subject is flattened to one line and the HTML escapes every value.
+ */
+export interface AlertMailInput {
+  kind: AlertKind;
+  detail: AlertDetail;
+  nodeId: number;
+  nodeName: string;
+  siteName: string;
+  timeZone: string;
+  appUrl: string;
+  reminder?: boolean;
+}
+
+export function buildAlertMail(input: AlertMailInput): { subject: string; text: string; html: string } {
+  const { detail, timeZone } = input;
+  const info = KIND_INFO[input.kind];
+  const brownout = localTime(detail.brownout_at, timeZone);
+  const recharge = localTime(detail.recharge_at, timeZone);
+  const headline = subjectTail(input, brownout);
+  const subject = oneLine(`${input.reminder ? 'Reminder: ' : ''}${input.nodeName} at ${input.siteName} is ${headline}`);
+  const rows: [string, string][] = [
+    ['Node', oneLine(input.nodeName)],
+    ['Site', oneLine(input.siteName)],
+    ['State', detail.state],
+    ['Night margin', formatMargin(detail.margin)],
+    ['Bank', typeof detail.volts === 'number' ? `${detail.volts.toFixed(2)} V (max ${detail.max_volts.toFixed(2)} V)` : 'no reading'],
+    ['Projected brownout', brownout ?? 'none before recharge'],
+    ['Recharge', recharge ?? 'not within 7 days'],
+    ['Last reading', localTime(detail.last_reading_at, timeZone) ?? 'none'],
+  ];
+  const cause = likelyCause(detail);
+  const link = nodeLink(input.appUrl, input.nodeId);
+  const intro = `${oneLine(input.nodeName)} — ${info.title}.`;
+  const text = [
+    intro,
+    '',
+    textRows(rows),
+    '',
+    `Likely cause: ${cause}`,
+    '',
+    'What to do:',
+    ...info.todo.map((t) => `- ${t}`),
+    '',
+    `Node page: ${link}`,
+    '',
+    `Times are in the site's zone (${timeZone}).${input.reminder ? ' This alert is not acknowledged yet; acknowledge it on the alerts page to stop reminders.' : ''}`,
+  ].join('\n');
+  const html = [
+    `<p><strong>${escapeHtml(intro)}</strong></p>`,
+    htmlRows(rows),
+    `<p><strong>Likely cause:</strong> ${escapeHtml(cause)}</p>`,
+    `<p><strong>What to do:</strong></p>`,
+    htmlList(info.todo),
+    `<p><a href="${escapeHtml(link)}">Open the node page</a></p>`,
+    `<p style="color:#666">Times are in the site's zone (${escapeHtml(timeZone)}).</p>`,
+  ].join('\n');
+  return { subject, text, html };
+}
+
+function subjectTail(input: AlertMailInput, brownout: string | null): string {
+  const d = input.detail;
+  switch (input.kind) {
+    case 'reserve_short':
+      return `short: brownout projected ${brownout ?? 'before recharge'} (margin ${formatMargin(d.margin)})`;
+    case 'reserve_thin':
+      return `thin (margin ${formatMargin(d.margin)})`;
+    case 'node_dark':
+      return 'dark: presumed browned out';
+    case 'node_silent':
+      return 'silent while healthy';
+    case 'draw_anomaly':
+      return `drawing ${d.draw_ratio?.toFixed(1) ?? '?'}x the modelled power`;
+    case 'not_charging':
+      return 'not charging on a clear day';
+    case 'over_voltage':
+      return `over-voltage (${d.volts?.toFixed(2) ?? '?'} V)`;
+  }
+}
+
+/** Measured vs modelled draw decides between "the node uses too much" and "the bank is too small". */
+export function likelyCause(detail: AlertDetail): string {
+  const measured = formatMilliwatts(detail.measured_watts);
+  const modelled = formatMilliwatts(detail.modelled_watts);
+  if (!measured || !modelled || detail.draw_ratio === null) {
+    return 'no measured draw yet (it needs a night of readings); the projection uses the modelled load.';
+  }
+  const figures = `last night it drew ${measured} against ${modelled} modelled (${detail.draw_ratio.toFixed(2)}x)`;
+  if (detail.draw_ratio > DRAW_ANOMALY_RATIO) {
+    return `${figures}: far more than the load profile explains, so look for firmware stuck awake, a leak or lost capacitance.`;
+  }
+  return `${figures}: the draw matches the model, so the bank is too small for this night at this cadence, or the panel did not refill it.`;
+}
