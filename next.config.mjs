@@ -20,6 +20,9 @@ const nextConfig = {
   // Parallel test stacks build into their own folder (db/lifecycle/profile.ts).
   distDir: process.env.NEXT_DIST_DIR || '.next',
   poweredByHeader: false,
+  // Types are checked by tests/api/typecheck.test.ts (tsc over the whole tree), not by the build,
+  // so parallel work in progress never blocks another stack's build.
+  typescript: { ignoreBuildErrors: true },
   reactStrictMode: true,
   serverExternalPackages: ['knex', 'mysql2', 'nodemailer', 'bcryptjs'],
   async headers() {

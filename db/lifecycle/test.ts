@@ -20,21 +20,21 @@ async function main() {
   rmSync(reportFile, { force: true });
   rmSync(profile.mailDir, { recursive: true, force: true });
 
-  await prepareDatabase(profile, { fresh: true });
-  await seedDemoIfEmpty(profile);
-  buildAppIfStale(profile.root, profile.distDir);
-  ensureChromium();
-
   const group = new ProcessGroup(path.join(profile.dataDir, 'logs'));
-  group.start('mail', binPath(profile.root, 'tsx'), ['lib/mail/run-catcher.ts'], env);
-  group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
   let status = 1;
   try {
+    await prepareDatabase(profile, { fresh: true });
+    await seedDemoIfEmpty(profile);
+    buildAppIfStale(profile.root, profile.distDir);
+    ensureChromium();
+    group.start('mail', binPath(profile.root, 'tsx'), ['lib/mail/run-catcher.ts'], env);
+    group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
     await waitForHttp(`${env.APP_URL}/`);
     const args = ['run', '--config', 'tests/vitest.config.mts', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...process.argv.slice(2)];
     const r = spawnSync(binPath(profile.root, 'vitest'), args, { stdio: 'inherit', env: { ...process.env, ...env, DUSKWATCH_TEST_STACK: '1' } });
     status = r.status ?? 1;
   } finally {
+    // Always leave the machine as we found it, even when set-up failed half-way.
     await group.stopAll();
     await stopMariadb(profile);
   }
