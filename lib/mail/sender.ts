@@ -98,7 +98,7 @@ export async function deliverDueMail(opts: { knex: Knex; now?: Date; smtp: SmtpS
 }
 
 async function claimDueRows(knex: Knex, now: Date, limit: number): Promise<OutboxRow[]> {
-  return knex.transaction(async (trx) => {
+  return knex.transaction<OutboxRow[]>(async (trx) => {
     const due = await trx('email_outbox').where('status', 'pending').andWhere('next_attempt_at', '<=', now)
       .orderBy('next_attempt_at').orderBy('id').limit(limit).forUpdate().skipLocked().pluck('id');
     if (due.length === 0) return [];

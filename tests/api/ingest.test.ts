@@ -151,3 +151,12 @@ describe('POST /api/v1/readings (DESIGN.md §5)', () => {
     expect(text).not.toContain(node.token.split('.')[2]);
   });
 });
+
+describe('GET /api/v1/openapi.json', () => {
+  it('serves the contract to device makers without signing in', async () => {
+    const res = await api().get('/api/v1/openapi.json');
+    expect(res.status).toBe(200);
+    expect(res.body.openapi).toBe('3.1.0');
+    expect(res.body.paths['/api/v1/readings']).toBeDefined();
+  });
+});
