@@ -98,12 +98,12 @@ export async function deliverDueMail(opts: { knex: Knex; now?: Date; smtp: SmtpS
 }
 
 async function claimDueRows(knex: Knex, now: Date, limit: number): Promise<OutboxRow[]> {
-  return knex.transaction<OutboxRow[]>(async (trx) => {
+  return knex.transaction(async (trx): Promise<OutboxRow[]> => {
     const due = await trx('email_outbox').where('status', 'pending').andWhere('next_attempt_at', '<=', now)
       .orderBy('next_attempt_at').orderBy('id').limit(limit).forUpdate().skipLocked().pluck('id');
     if (due.length === 0) return [];
     await trx('email_outbox').whereIn('id', due).update({ next_attempt_at: new Date(now.getTime() + LEASE_MS) });
-    return trx('email_outbox as e').leftJoin('organizations as o', 'o.id', 'e.org_id').whereIn('e.id', due).orderBy('e.id')
+    return await trx('email_outbox as e').leftJoin('organizations as o', 'o.id', 'e.org_id').whereIn('e.id', due).orderBy('e.id')
       .select('e.*', 'o.mail_cap_per_hour');
   });
 }
