@@ -98,6 +98,7 @@ export async function updateAlert(
 // ---- the alerts page and API ----
 
 export interface AlertFilters {
+  alertId?: number;
   siteId?: number;
   kind?: AlertKind;
   status?: AlertStatus;
@@ -124,6 +125,7 @@ export async function listAlerts(knex: Db, orgId: number, filters: AlertFilters 
       'a.opened_at', 'a.updated_at', 'a.last_notified_at', 'a.acknowledged_at', 'u.name as acknowledged_by_name', 'a.resolved_at')
     .orderBy('a.opened_at', 'desc').orderBy('a.id', 'desc')
     .limit(filters.limit ?? 200);
+  if (filters.alertId) q.andWhere('a.id', filters.alertId);
   if (filters.siteId) q.andWhere('s.id', filters.siteId);
   if (filters.kind) q.andWhere('a.kind', filters.kind);
   if (filters.status) q.andWhere('a.status', filters.status);

@@ -1,0 +1,97 @@
+'use client';
+
+import { useEffect, useMemo, useRef, useState } from 'react';
+import type uPlot from 'uplot';
+import UplotReact from 'uplot-react';
+import 'uplot/dist/uPlot.min.css';
+import { nightBandsPlugin, refLinesPlugin, timeMarksPlugin, type RefLine } from './night-bands';
+
+/**
+ * The one chart primitive: time on x (Unix seconds, shown in the site's zone), one or two y
+ * scales with their units, nights shaded, reference lines and time marks. Every chart of the
+ * app goes through here so that they read alike.
+ */
+export interface ChartSeries {
+  label: string;
+  scale: string;
+  color: string;
+  width?: number;
+  dash?: number[];
+  fill?: string;
+}
+
+export interface ChartAxis {
+  scale: string;
+  label: string; // with its unit, e.g. "bank (V)"
+  side?: 'left' | 'right';
+}
+
+export interface TimeChartProps {
+  data: uPlot.AlignedData;
+  series: ChartSeries[];
+  axes: ChartAxis[];
+  nights?: { from: number; to: number }[];
+  refLines?: RefLine[];
+  marks?: { at: number; label: string; color: string }[];
+  timeZone: string;
+  height?: number;
+  title: string;
+  onZoom?: (from: number, to: number) => void;
+  testId?: string;
+}
+
+const css = (name: string) => (typeof window === 'undefined' ? '#888' : `rgb(${getComputedStyle(document.documentElement).getPropertyValue(name).trim().split(' ').join(',')})`);
+
+function tzDate(timeZone: string) {
+  return (ts: number) => {
+    // uPlot formats a Date in local time; shift it so that "local" reads as the site's zone.
+    const d = new Date(ts * 1000);
+    const inZone = new Date(d.toLocaleString('en-US', { timeZone }));
+    const local = new Date(d.toLocaleString('en-US'));
+    return new Date(d.getTime() + (inZone.getTime() - local.getTime()));
+  };
+}
+
+export function TimeChart(props: TimeChartProps) {
+  const box = useRef<HTMLDivElement>(null);
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    if (!box.current) return;
+    const ro = new ResizeObserver(([entry]) => setWidth(Math.floor(entry.contentRect.width)));
+    ro.observe(box.current);
+    return () => ro.disconnect();
+  }, []);
+
+  const { series, axes, nights, refLines, marks, timeZone, height = 260, onZoom } = props;
+  const options = useMemo<uPlot.Options>(() => {
+    const ink = css('--ink-muted');
+    const grid = css('--dusk-800');
+    return {
+      width: Math.max(width, 280),
+      height,
+      tzDate: tzDate(timeZone),
+      cursor: { drag: { x: true, y: false } },
+      legend: { show: true },
+      scales: { x: { time: true } },
+      series: [
+        { label: 'time' },
+        ...series.map((s) => ({ label: s.label, scale: s.scale, stroke: s.color, width: s.width ?? 1.5, dash: s.dash, fill: s.fill, points: { show: false } })),
+      ],
+      axes: [
+        { stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } },
+        ...axes.map((a) => ({ scale: a.scale, label: a.label, stroke: ink, side: a.side === 'right' ? 1 : 3, grid: { show: a.side !== 'right', stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 56 })),
+      ],
+      hooks: onZoom ? { setSelect: [(u: uPlot) => { if (u.select.width > 4) onZoom(u.posToVal(u.select.left, 'x'), u.posToVal(u.select.left + u.select.width, 'x')); }] } : {},
+      plugins: [nightBandsPlugin(nights ?? []), refLinesPlugin(refLines ?? []), timeMarksPlugin(marks ?? [])],
+    };
+  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom]);
+
+  return (
+    <figure className="w-full" data-testid={props.testId}>
+      <figcaption className="mb-1 text-sm font-bold text-ink">{props.title}</figcaption>
+      <div ref={box} className="w-full [&_.u-legend]:text-xs [&_.u-legend]:text-ink-muted">
+        {width > 0 ? <UplotReact options={options} data={props.data} /> : <div style={{ height }} />}
+      </div>
+    </figure>
+  );
+}

@@ -1,0 +1,31 @@
+import { z } from 'zod';
+import { ALERT_KINDS, ALERT_STATUSES } from '../alerts/kinds';
+
+// Shared by the alerts page, the subscription form and their route handlers.
+export const alertKindSchema = z.enum(ALERT_KINDS, { message: `Choose one of: ${ALERT_KINDS.join(', ')}.` });
+
+/** GET /api/v1/alerts?site=&kind=&status= (all optional). */
+export const alertQuery = z.object({
+  site: z.coerce.number().int('Use a site id.').positive('Use a site id.').optional(),
+  kind: alertKindSchema.optional(),
+  status: z.enum(ALERT_STATUSES, { message: 'Choose open, acknowledged or resolved.' }).optional(),
+}).strict();
+
+export const subscriptionRow = z.object({
+  site_id: z.number().int().positive().nullable(), // null: every site
+  kinds: z.array(alertKindSchema).max(ALERT_KINDS.length * 2),
+  delivery: z.enum(['immediate', 'digest'], { message: 'Choose immediate or digest.' }),
+}).strict();
+
+/** PUT /api/v1/subscriptions: the caller's whole set, at most one row per site (and one for every site). */
+export const subscriptionsBody = z.object({
+  subscriptions: z.array(subscriptionRow).max(500),
+}).strict().superRefine((body, ctx) => {
+  const seen = new Set<string>();
+  body.subscriptions.forEach((row, i) => {
+    const key = String(row.site_id);
+    if (seen.has(key)) ctx.addIssue({ code: 'custom', path: ['subscriptions', i, 'site_id'], message: 'One row per site.' });
+    seen.add(key);
+  });
+});
+export type SubscriptionsBody = z.infer<typeof subscriptionsBody>;
