@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { evaluateNode, nightMargin, type BankSpec, type ConverterSpec, type LoadSpec, type SiteSpec } from '@/lib/energy';
+import { averageOutputWatts, evaluateNode, nightMargin, type BankSpec, type ConverterSpec, type LoadSpec, type SiteSpec } from '@/lib/energy';
 import { simulateDischargeUntilBrownout, type SimNodeSpec } from '@/simulator/physics';
 
 // Issue 4: "the projected brownout instant agrees within 2 % with a step-by-step simulation of
@@ -85,7 +85,7 @@ describe('projected brownout vs the simulator (issue 4, within 2 %)', () => {
       cellsParallel: fc.integer({ min: 1, max: 4 }),
       cellFarads: fc.double({ min: 10, max: 200, noNaN: true }),
       cellEsrOhms: fc.double({ min: 0, max: 0.03, noNaN: true }),
-      cellLeakageAmps: fc.double({ min: 0, max: 10e-6, noNaN: true }),
+      leakShare: fc.double({ min: 0, max: 0.01, noNaN: true }),
       eta: fc.double({ min: 0.6, max: 0.95, noNaN: true }),
       burstAmps: fc.double({ min: 0.05, max: 0.3, noNaN: true }),
       intervalSeconds: fc.integer({ min: 120, max: 900 }),
@@ -93,12 +93,18 @@ describe('projected brownout vs the simulator (issue 4, within 2 %)', () => {
     });
     fc.assert(
       fc.property(nodes, (n) => {
-        const b: BankSpec = { cellsSeries: n.cellsSeries, cellsParallel: n.cellsParallel, cellFarads: n.cellFarads, cellRatedVolts: 2.7, cellEsrOhms: n.cellEsrOhms, cellLeakageAmps: n.cellLeakageAmps };
         const c: ConverterSpec = { ...converter, efficiency: n.eta, cutoffVolts: 0.8, startVolts: 1.0 };
         const l: LoadSpec = { ...load, burstAmps: n.burstAmps, intervalSeconds: n.intervalSeconds, maxIntervalSeconds: 3600 };
+        // Leakage as a share of the node's mean draw at full voltage (see the header: the two
+        // leakage models differ by up to that share, so it is kept to ≤ 1 %).
+        const maxVolts = 2.7 * n.cellsSeries;
+        const loadWatts = averageOutputWatts({ load: l, outputVolts: c.outputVolts }) / n.eta;
+        const cellLeakageAmps = (n.leakShare * loadWatts) / (n.cellsParallel * maxVolts);
+        const b: BankSpec = { cellsSeries: n.cellsSeries, cellsParallel: n.cellsParallel, cellFarads: n.cellFarads, cellRatedVolts: 2.7, cellEsrOhms: n.cellEsrOhms, cellLeakageAmps };
         const result = darkBrownouts({ bank: b, converter: c, load: l, volts: 2.7 * n.cellsSeries * n.startFraction });
-        // Only discharges both sides call long (≥ 50 intervals, under the 7-day window) are compared.
-        fc.pre(result.modelSeconds > 50 * n.intervalSeconds);
+        // Only discharges of a night or more of reports (≥ 100 intervals, within the 7-day
+        // window) are compared: shorter ones are dominated by the one-interval steps.
+        fc.pre(result.modelSeconds > 100 * n.intervalSeconds);
         expect(Math.abs(result.simSeconds - result.modelSeconds) / result.modelSeconds).toBeLessThan(TOLERANCE);
       }),
       { numRuns: 40, seed: 4 },
