@@ -7,7 +7,7 @@ import { db } from '../db/knex';
  */
 const WINDOW_SECONDS = 15 * 60;
 const MAX_WAIT_SECONDS = 15 * 60;
-const FREE_FAILURES = { email: 5, ip: 20 } as const;
+const FREE_FAILURES = { email: 5, ip: 30 } as const;
 
 type KeyKind = keyof typeof FREE_FAILURES;
 
