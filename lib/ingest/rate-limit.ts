@@ -1,10 +1,10 @@
 /**
  * Per-node token bucket, per app instance: a steady allowance with room for a backlog burst.
  * A node that reports every few minutes never comes near it; one retrying a day of backlog
- * in batches of 1000 can send 30 posts at once and then one every 2 s.
+ * in batches of 1000 can send 60 posts at once and then two a second.
  */
-const CAPACITY = 30;
-const REFILL_PER_SECOND = 0.5;
+const CAPACITY = 60;
+const REFILL_PER_SECOND = 2;
 const buckets = new Map<number, { tokens: number; at: number }>();
 
 export function takeToken(nodeId: number, now = Date.now()): { ok: true } | { ok: false; retryAfterSeconds: number } {

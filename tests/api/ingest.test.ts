@@ -136,7 +136,7 @@ describe('POST /api/v1/readings (DESIGN.md §5)', () => {
   it('answers 429 with Retry-After when one node posts far too fast', async () => {
     const fast = await createTestNode('ingest-fast');
     let limited: { status: number; headers: Record<string, string> } | undefined;
-    for (let i = 0; i < 80 && !limited; i++) {
+    for (let i = 0; i < 300 && !limited; i++) {
       const res = await post(fast.token, { t: iso(1000 - i), v: 4.8 });
       if (res.status === 429) limited = res;
     }
