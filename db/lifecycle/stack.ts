@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import knexFactory from 'knex';
 import { migratorConfig } from './migration-source';
@@ -45,11 +45,16 @@ export function buildAppIfStale(root: string, distDir = '.next'): void {
     return;
   }
   console.log('[app] building (next build)…');
+  // next build adds its build folder to tsconfig.json's include; a test slot's folder must not
+  // end up in the committed file, so the file is put back as it was.
+  const tsconfigPath = path.join(root, 'tsconfig.json');
+  const tsconfig = readFileSync(tsconfigPath, 'utf8');
   const r = spawnSync(path.join(root, 'node_modules', '.bin', 'next'), ['build'], {
     cwd: root,
     stdio: 'inherit',
     env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: distDir },
   });
+  if (distDir !== '.next') writeFileSync(tsconfigPath, tsconfig);
   if (r.status !== 0) throw new Error('next build failed');
 }
 

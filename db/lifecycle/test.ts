@@ -1,12 +1,9 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
-import { ensureChromium } from './chromium';
-import { stopMariadb } from './mariadb';
-import { ProcessGroup, waitForHttp } from './processes';
 import { currentTestProfile, profileEnv } from './profile';
-import { binPath, buildAppIfStale, prepareDatabase } from './stack';
-import { seedDemoIfEmpty } from '../seeds/demo-seed';
+import { binPath } from './stack';
+import { withTestStack } from './test-stack';
 
 /**
  * npm test: the demo's set-up on the isolated test profile (own data dir, port and database,
@@ -20,24 +17,11 @@ async function main() {
   rmSync(reportFile, { force: true });
   rmSync(profile.mailDir, { recursive: true, force: true });
 
-  const group = new ProcessGroup(path.join(profile.dataDir, 'logs'));
-  let status = 1;
-  try {
-    await prepareDatabase(profile, { fresh: true });
-    await seedDemoIfEmpty(profile);
-    buildAppIfStale(profile.root, profile.distDir);
-    ensureChromium();
-    group.start('mail', binPath(profile.root, 'tsx'), ['lib/mail/run-catcher.ts'], env);
-    group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
-    await waitForHttp(`${env.APP_URL}/`);
+  const status = await withTestStack(profile, env, async () => {
     const args = ['run', '--config', 'tests/vitest.config.mts', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...process.argv.slice(2)];
     const r = spawnSync(binPath(profile.root, 'vitest'), args, { stdio: 'inherit', env: { ...process.env, ...env, DUSKWATCH_TEST_STACK: '1' } });
-    status = r.status ?? 1;
-  } finally {
-    // Always leave the machine as we found it, even when set-up failed half-way.
-    await group.stopAll();
-    await stopMariadb(profile);
-  }
+    return r.status ?? 1;
+  }, { browser: true });
   const counts = readCounts(reportFile);
   console.log(`${counts.passed} passed, ${counts.failed} failed`);
   process.exit(status === 0 && counts.failed === 0 && counts.passed > 0 ? 0 : 1);
@@ -45,7 +29,7 @@ async function main() {
 
 function readCounts(file: string): { passed: number; failed: number } {
   if (!existsSync(file)) return { passed: 0, failed: 1 };
-  const report = JSON.parse(readFileSync(file, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTestSuites: number; success: boolean };
+  const report = JSON.parse(readFileSync(file, 'utf8')) as { numPassedTests: number; numFailedTests: number; success: boolean };
   // A suite that failed to load counts as a failure even with no test inside it.
   const failed = report.numFailedTests + (report.success || report.numFailedTests > 0 ? 0 : 1);
   return { passed: report.numPassedTests, failed };

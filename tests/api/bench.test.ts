@@ -63,6 +63,23 @@ describe('POST /api/v1/bench/characterize', () => {
     expectRecovered(res.body);
   });
 
+  it('takes a log of 200 000 samples (a class-4 discharge logged at 10 kHz) and refuses one more', async () => {
+    // IEC 62391-1 class 4: I = 40·C·U_R mA = 1080 mA for 10 F / 2.7 V (REFERENCES.md); then
+    // t2 − t1 = C·(V1 − V2)/I = 10·1.08/1.08 = 10 s (derived here from the standard's formula).
+    const amps = 1.08;
+    const samples: [number, number][] = [[0, ratedVolts]];
+    // 2.7 V down to 0.54 V in 20 s: 200 000 samples, 0.1 ms apart.
+    for (let i = 1; i < 200_000; i++) samples.push([i / 10_000, Number((ratedVolts - amps * 0.01 - (amps * i) / 10_000 / farads).toFixed(6))]);
+    const ok = await characterizeJson({ rated_volts: ratedVolts, current_amps: amps, samples });
+    expect(ok.status).toBe(200);
+    expect(ok.body.t2_seconds - ok.body.t1_seconds).toBeCloseTo(10, 3);
+    expect(ok.body.capacitance_farads).toBeCloseTo(farads, 3);
+    expect(ok.body.esr_ohms).toBeCloseTo(0.01, 3); // the 10.8 mV step put in at 1.08 A (R = ΔV/I, IEC 62391-1)
+    const tooMany = await characterizeJson({ rated_volts: ratedVolts, current_amps: amps, samples: [...samples, [20, 0.5]] });
+    expect(tooMany.status).toBe(422);
+    expect(tooMany.body.errors.map((e: { pointer: string }) => e.pointer)).toEqual(['/samples']);
+  });
+
   it('says which threshold a log never crosses: 40 % of rated', async () => {
     const res = await characterizeJson({ rated_volts: ratedVolts, current_amps: currentAmps, samples: dischargeLog({ stopVolts: 1.5 }) });
     expect(res.status).toBe(422);

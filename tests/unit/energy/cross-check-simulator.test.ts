@@ -9,13 +9,18 @@ import { simulateDischargeUntilBrownout, type SimNodeSpec } from '@/simulator/ph
 // report's wake and burst in 50 ms sub-steps through the ESR, and browns out at the first
 // report that fails. The 2 % is relative to the time from the evaluation instant to brownout.
 //
-// Where they may differ, by design (so the configurations below stay in the range both claim):
+// Where they differ, by design (so the configurations below stay in the range both claim):
 // - the simulator takes the ESR loss I²·R out of the bank during wake and burst; the issue's
 //   formulas (bank-side power = output/η + leakage·V, V' = √(V² − 2Pt/(ηC))) leave it out,
 //   so lib/energy projects late by about the loss fraction I·ESR/V. Cells here have ≤ 30 mΩ.
-// - the simulator's leakage grows with voltage (∝ V/V_max); lib/energy holds it constant.
+// - the issue's burst floor is for the burst alone; the simulator's report runs the wake first,
+//   so it fails about one wake's energy earlier (lib/energy late by ≲ 1/cycles).
+// - the simulator's leakage grows with voltage (∝ V/V_max); lib/energy holds the maker's figure
+//   constant, so it projects early by up to leakage power ÷ load power (kept ≤ 1 % in the property).
 // - the simulator fails at a report instant: brownouts come in steps of one interval, so each
-//   discharge here lasts at least 50 intervals.
+//   discharge compared lasts at least 50 intervals (100 in the property).
+// Measured while writing this: over ~950 random nodes of the property's family (5 seeds × 300)
+// the worst gap was 1.5 %.
 
 const TOLERANCE = 0.02; // issue 4
 
@@ -77,6 +82,13 @@ describe('projected brownout vs the simulator (issue 4, within 2 %)', () => {
     ['three cells in series, a 5 V output', { bank: { ...bank, cellsSeries: 3, cellFarads: 60 }, converter: { ...converter, outputVolts: 5, cutoffVolts: 1.2, startVolts: 1.5 }, load, volts: 7.5 }],
   ])('in the dark: %s', (_name, node) => {
     expectAgreement(darkBrownouts(node));
+  });
+
+  it('outside that range (0.3 Ω cells) the ESR loss the issue leaves out shows: lib/energy is late', () => {
+    // Pins the known simplification (see the header) and shows the check can fail: with a bank
+    // ESR of 0.6 Ω the wake and burst lose I·ESR/V ≈ 5–10 % of their energy in the cells.
+    const { modelSeconds, simSeconds } = darkBrownouts({ bank: { ...bank, cellEsrOhms: 0.3 }, converter, load, volts: 5.0 });
+    expect(simSeconds).toBeLessThan(modelSeconds * (1 - TOLERANCE));
   });
 
   it('agrees over a family of realistic nodes (fast-check, cell ESR ≤ 30 mΩ)', () => {

@@ -1,0 +1,29 @@
+import path from 'node:path';
+import { ensureChromium } from './chromium';
+import { stopMariadb } from './mariadb';
+import { ProcessGroup, waitForHttp } from './processes';
+import type { Profile } from './profile';
+import { seedDemoIfEmpty } from '../seeds/demo-seed';
+import { binPath, buildAppIfStale, prepareDatabase } from './stack';
+
+/**
+ * A fresh test stack (database recreated and seeded, app built and started on the profile's
+ * port, mail catcher) around `work`; everything it started is stopped afterwards, even when
+ * set-up fails half-way. Used by npm test and npm run bench.
+ */
+export async function withTestStack<T>(profile: Profile, env: Record<string, string>, work: () => Promise<T>, opts: { browser?: boolean } = {}): Promise<T> {
+  const group = new ProcessGroup(path.join(profile.dataDir, 'logs'));
+  try {
+    await prepareDatabase(profile, { fresh: true });
+    await seedDemoIfEmpty(profile);
+    buildAppIfStale(profile.root, profile.distDir);
+    if (opts.browser) ensureChromium();
+    group.start('mail', binPath(profile.root, 'tsx'), ['lib/mail/run-catcher.ts'], env);
+    group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
+    await waitForHttp(`${env.APP_URL}/`);
+    return await work();
+  } finally {
+    await group.stopAll();
+    await stopMariadb(profile);
+  }
+}
