@@ -90,7 +90,7 @@ export function generateDemoHistory({ now, days = 14, seed = 1, dtSeconds = 60, 
   const out: Record<string, DemoNodeHistory> = {};
   for (const demoNode of [...demoNodes, ...secondDemoNodes]) {
     const spec = buildDemoSpec({ node: demoNode, now });
-    const chargeVolts = spec.bank.cellsSeries * spec.bank.cellRatedVolts * 0.98;
+    const chargeVolts = spec.bank.cellsSeries * spec.bank.cellRatedVolts * 0.96;
     const sim = new SimNode(spec, {
       seed: hashSeed(seed, seedFromText(demoNode.slug)), startAt, initialVolts: 0.9 * chargeVolts,
       weather: weathers.get(demoNode.siteSlug),

@@ -19,7 +19,7 @@ export function createBankPhysics({ bank, charger, faults }: { bank: SimBank; ch
     farads: ((bank.cellsParallel * bank.cellFarads) / bank.cellsSeries) * faults.capacitanceFactor,
     esrOhms: (bank.cellsSeries * bank.cellEsrOhms) / bank.cellsParallel,
     ratedVolts,
-    chargeVolts: charger.chargeVolts ?? ratedVolts * 0.98,
+    chargeVolts: charger.chargeVolts ?? ratedVolts * 0.96,
     leakageAmps: (volts) => leakAtRated * Math.max(0, volts) / ratedVolts,
   };
 }

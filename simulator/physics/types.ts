@@ -51,7 +51,7 @@ export interface SimPanel {
 export interface SimCharger {
   efficiency: number;
   chargeLimitAmps: number;
-  /** Charge stops here; default cellsSeries × cellRatedVolts × 0.98. */
+  /** Charge stops here; default cellsSeries × cellRatedVolts × 0.96 (kept below the 98 % over-voltage alert, as chargers are set in practice). */
   chargeVolts?: number;
 }
 

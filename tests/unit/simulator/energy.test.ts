@@ -20,7 +20,7 @@ describe('bank energy bookkeeping', () => {
     });
     expect(bank.farads).toBeCloseTo(40, 9);
     expect(bank.esrOhms).toBeCloseTo(0.045, 9);
-    expect(bank.chargeVolts).toBeCloseTo(3 * 2.7 * 0.98, 9);
+    expect(bank.chargeVolts).toBeCloseTo(3 * 2.7 * 0.96, 9);
   });
 
   it('reproduces the constant-current hold-up time t = C(V1 − V2)/I', () => {
