@@ -12,7 +12,8 @@ export type AuditAction =
   | 'password_reset_requested'
   | 'password_changed'
   | 'credential_created'
-  | 'credential_revoked';
+  | 'credential_revoked'
+  | 'alert_acknowledged';
 
 export async function writeAudit(
   entry: { orgId?: number | null; userId?: number | null; action: AuditAction; target?: string; detail?: unknown; ip?: string | null },

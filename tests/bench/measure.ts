@@ -1,0 +1,45 @@
+import { execSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+
+/** Resident memory (MB) of the app server process (the node process running serve.ts). */
+export function appRssMb(): number {
+  let pids: string[] = [];
+  try {
+    pids = execSync('pgrep -f "lib/server/serve.ts"', { encoding: 'utf8' }).trim().split('\n').filter(Boolean);
+  } catch {
+    return NaN;
+  }
+  let max = 0;
+  for (const pid of pids) {
+    try {
+      const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
+      if (m) max = Math.max(max, Number(m[1]) / 1024);
+    } catch {
+      /* process gone */
+    }
+  }
+  return max;
+}
+
+export function percentile(values: number[], p: number): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+export async function timed<T>(fn: () => Promise<T>): Promise<{ ms: number; value: T }> {
+  const t0 = performance.now();
+  const value = await fn();
+  return { ms: performance.now() - t0, value };
+}
+
+/** Samples the app's memory every 250 ms while `work` runs; returns the peak. */
+export async function withPeakRss<T>(work: () => Promise<T>): Promise<{ value: T; peakMb: number; startMb: number }> {
+  const startMb = appRssMb();
+  let peakMb = startMb;
+  const timer = setInterval(() => { peakMb = Math.max(peakMb, appRssMb()); }, 250);
+  try {
+    return { value: await work(), peakMb, startMb };
+  } finally {
+    clearInterval(timer);
+  }
+}

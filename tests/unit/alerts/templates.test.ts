@@ -1,0 +1,34 @@
+import { describe, expect, it } from 'vitest';
+import { buildAlertMail, likelyCause } from '@/lib/mail/templates/alert-mail';
+import { alertDetail } from '@/lib/alerts/rules';
+import { MAX_VOLTS, statusWith } from './fixtures';
+
+const status = statusWith({ state: 'short', margin: 0.62, volts: 2.1, brownout_at: new Date('2026-11-20T11:41:00Z'), recharge_at: new Date('2026-11-20T15:38:00Z') });
+const detail = alertDetail({ status, thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, measuredWatts: null });
+
+describe('the alert e-mail', () => {
+  it('names brownout and recharge in the site zone (America/Los_Angeles is UTC−8 in November: common practice)', () => {
+    const mail = buildAlertMail({ kind: 'reserve_short', detail, nodeId: 42, nodeName: 'N-1', siteName: 'Culvert', timeZone: 'America/Los_Angeles', appUrl: 'http://127.0.0.1:3000/' });
+    expect(mail.text).toContain('Fri 20 Nov 03:41 PST'); // 11:41 UTC − 8 h
+    expect(mail.text).toContain('Fri 20 Nov 07:38 PST'); // 15:38 UTC − 8 h
+    expect(mail.subject).toContain('Fri 20 Nov 03:41 PST');
+    expect(mail.text).toContain('http://127.0.0.1:3000/nodes/42');
+    expect(mail.text).toContain('Stretch the report interval');
+    expect(mail.html).toContain('href="http://127.0.0.1:3000/nodes/42"');
+  });
+
+  it('keeps a name with line breaks on one subject line and escapes it in HTML', () => {
+    const evil = 'Pump<b>\r\nBcc: victim@test.example\r\n';
+    const mail = buildAlertMail({ kind: 'node_dark', detail, nodeId: 1, nodeName: evil, siteName: 'S\nX-Injected: 1', timeZone: 'UTC', appUrl: 'http://x' });
+    expect(mail.subject).not.toMatch(/[\r\n]/);
+    expect(mail.html).not.toContain('<b>');
+    expect(mail.html).toContain('Pump&lt;b&gt;');
+    expect(mail.text.split('\n').some((l) => l.startsWith('Bcc:'))).toBe(false);
+  });
+
+  it('explains the likely cause from measured vs modelled draw', () => {
+    expect(likelyCause({ ...detail, measured_watts: 0.006, modelled_watts: 0.002, draw_ratio: 3 })).toMatch(/stuck awake/);
+    expect(likelyCause({ ...detail, measured_watts: 0.0021, modelled_watts: 0.002, draw_ratio: 1.05 })).toMatch(/bank is too small/);
+    expect(likelyCause(detail)).toMatch(/no measured draw yet/);
+  });
+});
