@@ -1,16 +1,20 @@
-import { refreshNodeStatus } from '../db/queries/status';
+import type { Knex } from 'knex';
+import { applyRollupDeltas } from '../db/queries/rollups';
 import { storeReadings } from '../db/queries/readings';
-import { rebuildRollups } from '../db/queries/rollups';
-import { db } from '../db/knex';
 import { ProblemError, problems } from '../errors';
+import { deriveNodeStatus } from '../status/derive-status';
+import { calibratedVolts, modelSpecFromRows } from '../status/node-spec';
 import { parseIngestBody } from './body';
-import { authenticateDevice } from './device-auth';
+import { authenticateDevice, type DeviceContext } from './device-auth';
+import type { NormalizedReading } from './normalize';
 import { takeToken } from './rate-limit';
 
 /**
- * POST /api/v1/readings (DESIGN.md §5). The fixed order: authenticate the device → rate limit
- * → parse and validate the whole post → store it in one transaction → only after the commit
- * returned, answer 200. Storage down or uncertain → 503 with Retry-After; nothing half stored.
+ * POST /api/v1/readings (DESIGN.md §5). The fixed order: authenticate the device (one query
+ * that also loads the node's model) → rate limit → parse and validate the whole post → store
+ * the readings, fold them into the chart rollups and update the node's status in ONE
+ * transaction → only after the commit returned, answer 200. Storage down or uncertain → 503
+ * with Retry-After; nothing half stored.
  */
 export async function ingest(request: Request): Promise<Response> {
   const receivedAt = new Date();
@@ -18,28 +22,31 @@ export async function ingest(request: Request): Promise<Response> {
   const limit = takeToken(device.nodeId);
   if (!limit.ok) throw problems.tooMany(limit.retryAfterSeconds);
   const readings = await parseIngestBody(request, receivedAt);
-  const result = await storage(() => storeReadings(device.nodeId, readings));
+  let reply = { state: device.state ?? 'new', next_report_s: device.nextReportSeconds ?? device.node.interval_seconds };
+  const result = await storage(() =>
+    storeReadings(device.nodeId, readings, {
+      within: async (trx, fresh) => {
+        await applyRollupDeltas(trx, device.nodeId, fresh);
+        reply = (await updateStatus(trx, device, fresh, receivedAt)) ?? reply;
+      },
+    }),
+  );
+  return Response.json({ accepted: result.accepted, duplicates: result.duplicates, ...reply });
+}
 
-  // The readings are durable now. Status and rollups follow; if they fail, the job runner
-  // recomputes them on its next pass, so the device still gets its 200.
-  let state = 'new';
-  let nextReportSeconds = 0;
-  try {
-    if (result.stored.length) {
-      const times = result.stored.map((r) => r.t.getTime());
-      await rebuildRollups(db(), device.nodeId, new Date(Math.min(...times)), new Date(Math.max(...times)));
-    }
-    const status = await refreshNodeStatus(device.nodeId, receivedAt);
-    state = status?.state ?? 'new';
-    nextReportSeconds = status?.next_report_s ?? 0;
-  } catch (e) {
-    console.error('[ingest] status refresh failed after commit', e);
-    const row = await db()('node_status').where({ node_id: device.nodeId }).first('state', 'next_report_s').catch(() => null);
-    state = row?.state ?? 'new';
-    nextReportSeconds = row?.next_report_s ?? 0;
-  }
-  if (!nextReportSeconds) nextReportSeconds = (await db()('nodes').where({ id: device.nodeId }).first('interval_seconds').catch(() => null))?.interval_seconds ?? 300;
-  return Response.json({ accepted: result.accepted, duplicates: result.duplicates, state, next_report_s: nextReportSeconds });
+/** The node's status from the newest reading, when this post brought a newer one. */
+async function updateStatus(trx: Knex.Transaction, device: DeviceContext, fresh: NormalizedReading[], now: Date) {
+  if (!fresh.length) return null;
+  const newest = fresh.reduce((a, b) => (b.t > a.t ? b : a));
+  if (device.lastReadingAt && newest.t <= device.lastReadingAt) return null;
+  const status = deriveNodeStatus({
+    spec: modelSpecFromRows(device.node, device.site),
+    latest: { t: newest.t, volts: calibratedVolts(device.node, newest.v), panelVolts: newest.vp },
+    now,
+    thresholds: device.thresholds,
+  });
+  await trx('node_status').insert({ node_id: device.nodeId, org_id: device.orgId, ...status }).onConflict('node_id').merge();
+  return { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };
 }
 
 /** Any failure to reach or commit to storage: the device should simply retry later. */

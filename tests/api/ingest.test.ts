@@ -160,3 +160,22 @@ describe('GET /api/v1/openapi.json', () => {
     expect(res.body.paths['/api/v1/readings']).toBeDefined();
   });
 });
+
+describe('chart rollups kept on ingest', () => {
+  it('fold each post into its buckets exactly as a full recomputation would (derived here)', async () => {
+    const { rebuildRollups } = await import('@/lib/db/queries/rollups');
+    const fresh = await createTestNode('ingest-rollup');
+    const base = Date.now() - 5 * 3600_000;
+    const at = (min: number) => new Date(base + min * 60_000).toISOString();
+    await post(fresh.token, { readings: [0, 3, 7, 61, 62].map((m, i) => ({ t: at(m), v: 4.5 + i / 100, vp: i % 2 ? 5.9 : undefined })) });
+    await post(fresh.token, { readings: [2, 3, 90].map((m) => ({ t: at(m), v: 4.41 })) }); // 3 is a duplicate
+    await post(fresh.token, { t: at(1), v: 4.7, vp: 6.1 }); // older than the newest: still folded in
+    const snapshot = async () => (await db()('reading_rollups').where({ node_id: fresh.nodeId }).orderBy(['bucket_seconds', 'bucket_start']))
+      .map((r) => ({ ...r, v_sum: Number(r.v_sum).toFixed(4) }));
+    const incremental = await snapshot();
+    await db()('reading_rollups').where({ node_id: fresh.nodeId }).delete();
+    await rebuildRollups(db(), fresh.nodeId);
+    expect(incremental).toEqual(await snapshot());
+    expect(incremental.filter((r) => r.bucket_seconds === 3600).reduce((n, r) => n + r.n, 0)).toBe(8);
+  });
+});

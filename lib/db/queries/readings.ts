@@ -7,10 +7,20 @@ import type { NormalizedReading } from '../../ingest/normalize';
  * or appears twice in the batch — is a duplicate: counted, never stored twice. Not INSERT
  * IGNORE, which would also swallow real errors and coerce bad values.
  */
-export async function storeReadings(nodeId: number, readings: NormalizedReading[], knex: Knex = db()): Promise<{ accepted: number; duplicates: number; stored: NormalizedReading[] }> {
+export async function storeReadings(
+  nodeId: number,
+  readings: NormalizedReading[],
+  opts: { knex?: Knex; within?: (trx: Knex.Transaction, fresh: NormalizedReading[]) => Promise<void> } = {},
+): Promise<{ accepted: number; duplicates: number; stored: NormalizedReading[] }> {
+  const knex = opts.knex ?? db();
   for (let attempt = 0; ; attempt++) {
     try {
-      return await knex.transaction(async (trx) => insertNew(trx, nodeId, readings));
+      // `within` runs in the same transaction (rollups, status): one commit, one fsync, per post.
+      return await knex.transaction(async (trx) => {
+        const result = await insertNew(trx, nodeId, readings);
+        if (opts.within) await opts.within(trx, result.stored);
+        return result;
+      });
     } catch (e) {
       // A concurrent post of the same reading won the race: on retry it is a duplicate.
       if ((e as { code?: string }).code === 'ER_DUP_ENTRY' && attempt < 2) continue;

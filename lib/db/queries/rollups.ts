@@ -28,3 +28,40 @@ export async function rebuildRollups(knex: Knex | Knex.Transaction, nodeId: numb
     );
   }
 }
+
+/**
+ * Folds freshly stored readings into their buckets in one statement (the hot ingest path).
+ * Exact because only new readings are passed: duplicates never reach here.
+ */
+export async function applyRollupDeltas(trx: Knex | Knex.Transaction, nodeId: number, readings: { t: Date; v: number; vp: number | null }[]): Promise<void> {
+  if (!readings.length) return;
+  const buckets = new Map<string, { bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null }>();
+  for (const r of readings) {
+    const ms = r.t.getTime();
+    for (const bucket of ROLLUP_BUCKETS_SECONDS) {
+      const start = Math.floor(ms / 1000 / bucket) * bucket;
+      const key = `${bucket}:${start}`;
+      const b = buckets.get(key) ?? { bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
+      b.n++;
+      b.min = Math.min(b.min, r.v);
+      b.max = Math.max(b.max, r.v);
+      b.sum += r.v;
+      if (ms > b.tLast) { b.tLast = ms; b.last = r.v; }
+      if (r.vp !== null) b.vpMax = b.vpMax === null ? r.vp : Math.max(b.vpMax, r.vp);
+      buckets.set(key, b);
+    }
+  }
+  const rows = [...buckets.values()];
+  const placeholders = rows.map(() => '(?, ?, FROM_UNIXTIME(?), ?, ?, ?, ?, ?, ?, ?)').join(', ');
+  const values = rows.flatMap((b) => [nodeId, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, new Date(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
+  await trx.raw(
+    `INSERT INTO reading_rollups (node_id, bucket_seconds, bucket_start, n, v_min, v_max, v_sum, v_last, t_last, vp_max)
+     VALUES ${placeholders}
+     ON DUPLICATE KEY UPDATE
+       v_last = IF(VALUES(t_last) > t_last, VALUES(v_last), v_last),
+       t_last = GREATEST(t_last, VALUES(t_last)),
+       n = n + VALUES(n), v_min = LEAST(v_min, VALUES(v_min)), v_max = GREATEST(v_max, VALUES(v_max)),
+       v_sum = v_sum + VALUES(v_sum), vp_max = IF(vp_max IS NULL, VALUES(vp_max), GREATEST(vp_max, COALESCE(VALUES(vp_max), vp_max)))`,
+    values,
+  );
+}
