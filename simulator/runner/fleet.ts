@@ -100,6 +100,8 @@ export function startFleet(opts: FleetOptions): Fleet {
       opts.onTick?.(fleet);
       await sleep(Math.min(tickMs, Math.max(0, endAtMs - Date.now())), undefined, { signal: stepper.signal }).catch(() => undefined);
     }
+    // The duration is up: the stretch since the last tick still happened.
+    if (!stepper.signal.aborted) advance({ toMs: clock.nowMs() });
   };
 
   const fleet: Fleet = {
