@@ -15,12 +15,15 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 } },
       },
       {
         resolve: { alias },
         test: {
           name: 'api',
+          // Projects run one after another: API tests stop MariaDB on purpose (outage tests),
+          // which must never overlap the browser tests.
+          sequence: { groupOrder: 1 },
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           fileParallelism: false,
@@ -32,6 +35,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'e2e',
+          sequence: { groupOrder: 2 },
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
           fileParallelism: false,
