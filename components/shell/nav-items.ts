@@ -9,7 +9,8 @@ export interface NavItem {
 
 export const NAV_ITEMS: NavItem[] = [
   { href: '/fleet', label: 'Tonight', glyph: 'fleet', permission: 'fleet:read' },
-  // Alerts, Planner, Bench and Sites join the rail as their screens land (issue 7).
+  { href: '/sites', label: 'Sites', glyph: 'sites', permission: 'fleet:read' },
+  // Alerts, Planner and Bench join the rail as their screens land (issue 7).
   { href: '/team', label: 'Team', glyph: 'team', permission: 'team:manage' },
   { href: '/account', label: 'Account', glyph: 'account', permission: 'fleet:read' },
 ];

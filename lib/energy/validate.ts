@@ -30,9 +30,9 @@ export function checkNodeSpecs({
   if (!(bank.cellLeakageAmps >= 0)) add(['bank', 'cellLeakageAmps'], 'must not be negative');
   const maxVolts = modelBank({ bank }).maxVolts;
   if (!(converter.cutoffVolts > 0)) add(['converter', 'cutoffVolts'], 'must be above 0 V');
-  else if (converter.cutoffVolts >= maxVolts) add(['converter', 'cutoffVolts'], `must be below the bank's maximum (${maxVolts} V)`);
+  else if (converter.cutoffVolts >= maxVolts) add(['converter', 'cutoffVolts'], `must be below the bank's maximum (${Number(maxVolts.toFixed(3))} V)`);
   if (!(converter.startVolts >= converter.cutoffVolts)) add(['converter', 'startVolts'], 'must not be below the cutoff');
-  else if (converter.startVolts > maxVolts) add(['converter', 'startVolts'], `must not exceed the bank's maximum (${maxVolts} V)`);
+  else if (converter.startVolts > maxVolts) add(['converter', 'startVolts'], `must not exceed the bank's maximum (${Number(maxVolts.toFixed(3))} V)`);
   if (!(converter.outputVolts > 0)) add(['converter', 'outputVolts'], 'must be above 0 V');
   if (!(converter.inputLimitAmps > 0)) add(['converter', 'inputLimitAmps'], 'must be above 0 A');
   checkEfficiency(converter.efficiency, add);

@@ -25,7 +25,7 @@ const EXPECTED: Record<string, Rule> = {
   'POST /api/v1/invitations/accept': 'public',
   'POST /api/v1/model/evaluate': 'viewer',
   'DELETE /api/v1/nodes/[nodeId]/credentials/[credentialId]': 'deployer',
-  'GET /api/v1/nodes/[nodeId]/credentials': 'deployer',
+  'GET /api/v1/nodes/[nodeId]/credentials': 'viewer',
   'POST /api/v1/nodes/[nodeId]/credentials': 'deployer',
   'GET /api/v1/nodes/[nodeId]/export': 'viewer',
   'GET /api/v1/nodes/[nodeId]/imports': 'viewer',

@@ -5,7 +5,7 @@ import { idParam, memberRoute } from '@/lib/http/route';
 type P = { nodeId: string };
 const createBody = z.object({ label: z.string().trim().max(120).regex(/^[^\r\n]*$/, 'Use one line.').default('') }).strict();
 
-export const GET = memberRoute<undefined, P>({ permission: 'credentials:manage' }, async ({ member, params }) => {
+export const GET = memberRoute<undefined, P>({ permission: 'fleet:read' }, async ({ member, params }) => {
   return Response.json({ credentials: await listCredentials(member.orgId, idParam(params.nodeId, 'The node')) });
 });
 

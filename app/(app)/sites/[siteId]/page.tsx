@@ -1,0 +1,47 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { DeleteSite } from '@/components/sites/delete-site';
+import { SiteForm } from '@/components/sites/site-form';
+import { currentMember } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/roles';
+import { getSiteWire } from '@/lib/db/queries/sites';
+import { ProblemError } from '@/lib/errors';
+
+export const metadata: Metadata = { title: 'Site' };
+
+export default async function SitePage({ params }: { params: Promise<{ siteId: string }> }) {
+  const member = await currentMember();
+  if (!member) redirect('/sign-in');
+  const raw = (await params).siteId;
+  const siteId = Number(raw);
+  if (!Number.isSafeInteger(siteId) || siteId <= 0 || String(siteId) !== raw) notFound();
+  const site = await getSiteWire(member.orgId, siteId).catch((e) => {
+    if (e instanceof ProblemError && e.status === 404) notFound();
+    throw e;
+  });
+  const { id: _id, live_nodes: nodes, ...body } = site;
+  return (
+    <section className="flex flex-col gap-4">
+      <div>
+        <Link href="/sites" className="text-sm text-tide underline-offset-2 hover:underline">← Sites</Link>
+        <h1 className="mt-1 text-2xl font-bold" data-testid="site-name">{site.name}</h1>
+        <p className="text-sm text-ink-muted">{nodes} node{nodes === 1 ? '' : 's'} on this site.</p>
+      </div>
+      {can(member.role, 'sites:write') ? (
+        <>
+          <SiteForm siteId={site.id} initial={body} />
+          <DeleteSite siteId={site.id} name={site.name} />
+        </>
+      ) : (
+        <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-4 gap-y-1 rounded-xl border border-dusk-700 bg-dusk-900 p-4 text-sm" data-testid="site-readonly">
+          <dt className="text-ink-faint">Latitude</dt><dd className="figures">{site.lat}°</dd>
+          <dt className="text-ink-faint">Longitude</dt><dd className="figures">{site.lon}°</dd>
+          <dt className="text-ink-faint">Time zone</dt><dd>{site.time_zone}</dd>
+          <dt className="text-ink-faint">Recharge elevation</dt><dd className="figures">{site.recharge_elevation_deg}°</dd>
+          <dt className="text-ink-faint">Notes</dt><dd className="whitespace-pre-line">{site.notes || '—'}</dd>
+        </dl>
+      )}
+    </section>
+  );
+}

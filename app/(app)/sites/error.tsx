@@ -1,0 +1,3 @@
+'use client';
+
+export { RecordPageError as default } from '@/components/settings/record-page-error';

@@ -1,0 +1,50 @@
+import { averageOutputWatts, energyJoules, modelBank, reserveJoules, shortCircuitAmps, solveBurstFloor, usableJoules, type BankModel } from '@/lib/energy';
+import { bankFromWire, bankSchema, converterFromWire, converterSchema, loadFromWire, loadSchema } from '@/lib/schemas/model';
+
+/**
+ * The figures shown beside the inputs as they are typed, from the pure energy model in the
+ * browser. A figure appears only once the inputs it needs pass the same schemas the server uses.
+ */
+export interface BankFigures extends BankModel {
+  fullJoules: number;
+  shortCircuitAmps: number;
+}
+
+export interface LoadFigures {
+  burstFloorVolts: number;
+  burstReachable: boolean;
+  usableAtFullJoules: number;
+  reserveAtFullJoules: number;
+  averageOutputWatts: number;
+}
+
+export function computeBankFigures(bank: unknown): BankFigures | null {
+  const parsed = bankSchema.safeParse(bank);
+  if (!parsed.success) return null;
+  const model = modelBank({ bank: bankFromWire(parsed.data) });
+  return {
+    ...model,
+    fullJoules: energyJoules({ farads: model.farads, volts: model.maxVolts }),
+    // At full charge: the worst case a short would see.
+    shortCircuitAmps: shortCircuitAmps({ volts: model.maxVolts, esrOhms: model.esrOhms }),
+  };
+}
+
+export function computeLoadFigures(body: { bank?: unknown; converter?: unknown; load?: unknown }): LoadFigures | null {
+  const b = bankSchema.safeParse(body.bank);
+  const c = converterSchema.safeParse(body.converter);
+  const l = loadSchema.safeParse(body.load);
+  if (!b.success || !c.success || !l.success) return null;
+  const bank = modelBank({ bank: bankFromWire(b.data) });
+  const converter = converterFromWire(c.data);
+  const load = loadFromWire(l.data);
+  if (converter.cutoffVolts >= bank.maxVolts) return null; // the cross-field check names this field
+  const floor = solveBurstFloor({ bank, converter, load });
+  return {
+    burstFloorVolts: floor.volts,
+    burstReachable: floor.reachable,
+    usableAtFullJoules: usableJoules({ farads: bank.farads, volts: bank.maxVolts, floorVolts: converter.cutoffVolts }),
+    reserveAtFullJoules: floor.reachable ? reserveJoules({ farads: bank.farads, volts: bank.maxVolts, burstFloorVolts: floor.volts }) : 0,
+    averageOutputWatts: averageOutputWatts({ load, outputVolts: converter.outputVolts }),
+  };
+}

@@ -1,0 +1,23 @@
+'use client';
+
+import { useEffect, useState } from 'react';
+import { nextRechargeAt } from '@/lib/energy';
+import { formatInTimeZone } from '@/lib/format/time';
+import { isKnownTimeZone } from '@/lib/schemas/site';
+
+/** What the settings mean tonight: the next net-charge moment, computed in the browser. */
+export function RechargePreview({ lat, lon, elevationDeg, timeZone }: { lat: number; lon: number; elevationDeg: number; timeZone: string }) {
+  // "Now" only after mount: the server's clock and zone list would not match the browser's.
+  const [now, setNow] = useState<Date | null>(null);
+  useEffect(() => setNow(new Date()), []);
+  const ok = now !== null && [lat, lon, elevationDeg].every(Number.isFinite) && Math.abs(lat) <= 90 && Math.abs(lon) <= 180 && elevationDeg >= -18 && elevationDeg <= 60;
+  if (!ok) return null;
+  const zone = isKnownTimeZone(timeZone) ? timeZone : 'UTC';
+  const at = nextRechargeAt({ site: { lat, lon, rechargeElevationDeg: elevationDeg }, at: now });
+  return (
+    <p className="rounded-lg border border-tide/50 bg-dusk-950 p-3 text-sm" aria-live="polite" data-testid="recharge-preview">
+      Next net charge with these settings:{' '}
+      <strong className="figures text-tide">{at ? formatInTimeZone(at, zone, 'EEE d MMM HH:mm') : 'not within 7 days (polar night)'}</strong>
+    </p>
+  );
+}
