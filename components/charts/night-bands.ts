@@ -29,6 +29,14 @@ export interface RefLine {
   label: string;
   color: string;
   dash: number[];
+  /** Where the label sits; "below" keeps two close lines (floor and cutoff) from writing over each other. */
+  labelSide?: 'above' | 'below';
+}
+
+/** Canvas text in the app's figures face (next/font puts its family in --font-figures on <html>). */
+function figuresFont(): string {
+  const family = getComputedStyle(document.documentElement).getPropertyValue('--font-figures').trim();
+  return `${Math.round(11 * devicePixelRatio)}px ${family ? `${family}, ` : ''}ui-monospace, monospace`;
 }
 
 export function refLinesPlugin(lines: RefLine[]): uPlot.Plugin {
@@ -38,7 +46,9 @@ export function refLinesPlugin(lines: RefLine[]): uPlot.Plugin {
         const { ctx } = u;
         const { left, width } = u.bbox;
         ctx.save();
-        ctx.font = `${Math.round(11 * devicePixelRatio)}px var(--font-figures), monospace`;
+        ctx.font = figuresFont();
+        // uPlot leaves its own alignment on the context after drawing axes: set ours.
+        ctx.textAlign = 'left';
         for (const l of lines) {
           const y = u.valToPos(l.value, l.scale, true);
           if (!Number.isFinite(y)) continue;
@@ -50,7 +60,8 @@ export function refLinesPlugin(lines: RefLine[]): uPlot.Plugin {
           ctx.moveTo(left, y);
           ctx.lineTo(left + width, y);
           ctx.stroke();
-          ctx.fillText(l.label, left + 6 * devicePixelRatio, y - 4 * devicePixelRatio);
+          ctx.textBaseline = l.labelSide === 'below' ? 'top' : 'alphabetic';
+          ctx.fillText(l.label, left + 6 * devicePixelRatio, l.labelSide === 'below' ? y + 3 * devicePixelRatio : y - 4 * devicePixelRatio);
         }
         ctx.restore();
       },
@@ -64,9 +75,10 @@ export function timeMarksPlugin(marks: { at: number; label: string; color: strin
     hooks: {
       draw: (u: uPlot) => {
         const { ctx } = u;
-        const { top, height } = u.bbox;
+        const { top, height, left, width } = u.bbox;
         ctx.save();
-        ctx.font = `${Math.round(11 * devicePixelRatio)}px var(--font-figures), monospace`;
+        ctx.font = figuresFont();
+        ctx.textBaseline = 'alphabetic';
         for (const m of marks) {
           const x = u.valToPos(m.at, 'x', true);
           if (!Number.isFinite(x)) continue;
@@ -78,7 +90,11 @@ export function timeMarksPlugin(marks: { at: number; label: string; color: strin
           ctx.moveTo(x, top + height);
           ctx.lineTo(x, top + height - 14 * devicePixelRatio);
           ctx.stroke();
-          ctx.fillText(m.label, x + 4 * devicePixelRatio, top + height - 4 * devicePixelRatio);
+          // Near the right edge the label goes to the tick's left, so it is never cut off.
+          const room = left + width - x;
+          const textWidth = ctx.measureText(m.label).width;
+          ctx.textAlign = room < textWidth + 8 * devicePixelRatio ? 'right' : 'left';
+          ctx.fillText(m.label, ctx.textAlign === 'right' ? x - 4 * devicePixelRatio : x + 4 * devicePixelRatio, top + height - 18 * devicePixelRatio);
         }
         ctx.restore();
       },

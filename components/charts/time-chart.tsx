@@ -24,6 +24,8 @@ export interface ChartAxis {
   scale: string;
   label: string; // with its unit, e.g. "bank (V)"
   side?: 'left' | 'right';
+  /** Values the scale must always show (a floor or cutoff line below the data), beside the data's own range. */
+  include?: number[];
 }
 
 export interface TimeChartProps {
@@ -38,9 +40,22 @@ export interface TimeChartProps {
   title: string;
   onZoom?: (from: number, to: number) => void;
   testId?: string;
+  /** Label under the time axis, e.g. "time (America/Los_Angeles)". */
+  timeLabel?: string;
 }
 
 const css = (name: string) => (typeof window === 'undefined' ? '#888' : `rgb(${getComputedStyle(document.documentElement).getPropertyValue(name).trim().split(' ').join(',')})`);
+
+/** A y range holding the data and every `include` value, with a little air above and below. */
+function includeRange(include: number[]) {
+  return (_u: uPlot, min: number | null, max: number | null): uPlot.Range.MinMax => {
+    const values = [...include, ...(min == null || !Number.isFinite(min) ? [] : [min]), ...(max == null || !Number.isFinite(max) ? [] : [max])];
+    const low = Math.min(...values);
+    const high = Math.max(...values);
+    const pad = (high - low || Math.abs(high) || 1) * 0.06;
+    return [low - pad, high + pad];
+  };
+}
 
 function tzDate(timeZone: string) {
   return (ts: number) => {
@@ -62,7 +77,7 @@ export function TimeChart(props: TimeChartProps) {
     return () => ro.disconnect();
   }, []);
 
-  const { series, axes, nights, refLines, marks, timeZone, height = 260, onZoom } = props;
+  const { series, axes, nights, refLines, marks, timeZone, height = 260, onZoom, timeLabel } = props;
   const options = useMemo<uPlot.Options>(() => {
     const ink = css('--ink-muted');
     const grid = css('--dusk-800');
@@ -72,19 +87,19 @@ export function TimeChart(props: TimeChartProps) {
       tzDate: tzDate(timeZone),
       cursor: { drag: { x: true, y: false } },
       legend: { show: true },
-      scales: { x: { time: true } },
+      scales: { x: { time: true }, ...Object.fromEntries(axes.filter((a) => a.include?.length).map((a) => [a.scale, { range: includeRange(a.include!) }])) },
       series: [
         { label: 'time' },
         ...series.map((s) => ({ label: s.label, scale: s.scale, stroke: s.color, width: s.width ?? 1.5, dash: s.dash, fill: s.fill, points: { show: false } })),
       ],
       axes: [
-        { stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } },
+        { stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, ...(timeLabel ? { label: timeLabel, labelSize: 20 } : {}) },
         ...axes.map((a) => ({ scale: a.scale, label: a.label, stroke: ink, side: a.side === 'right' ? 1 : 3, grid: { show: a.side !== 'right', stroke: grid, width: 1 }, ticks: { stroke: grid }, size: 56 })),
       ],
       hooks: onZoom ? { setSelect: [(u: uPlot) => { if (u.select.width > 4) onZoom(u.posToVal(u.select.left, 'x'), u.posToVal(u.select.left + u.select.width, 'x')); }] } : {},
       plugins: [nightBandsPlugin(nights ?? []), refLinesPlugin(refLines ?? []), timeMarksPlugin(marks ?? [])],
     };
-  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom]);
+  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom, timeLabel]);
 
   return (
     <figure className="w-full" data-testid={props.testId}>

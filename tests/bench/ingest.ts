@@ -68,7 +68,7 @@ export async function singleReadingRequestsPerSecond(url: string, tokens: string
         return { ...req, headers: { ...(req.headers as object), authorization: `Bearer ${token}` }, body: JSON.stringify({ t, v: 4.6 }) };
       },
     }],
-  } as autocannon.Options);
+  } as unknown as autocannon.Options);
   const { value: result, peakMb } = await withPeakRss(run);
   return { requestsPerSecond: result.requests.average, non2xx: result.non2xx, errors: result.errors, peakMb, total: result.requests.total };
 }

@@ -1,0 +1,52 @@
+import { StateGlyph } from '@/components/state-glyph';
+import { NODE_STATE_INFO, NODE_STATES, type NodeState } from '@/lib/config/node-states';
+import type { FleetView } from '@/lib/db/queries/fleet';
+import { formatInTimeZone } from '@/lib/format/time';
+import { formatDuration, secondsBetween } from './duration';
+
+/**
+ * The answer first: how many nodes in each state (each a toggle of the state filter) and
+ * the earliest projected brownout, in its site's zone.
+ */
+export function FleetSummary({ view, state, onState }: { view: FleetView; state: NodeState | null; onState: (s: NodeState | null) => void }) {
+  const earliest = view.earliest_brownout;
+  return (
+    <div className="mt-4 flex flex-col gap-4">
+      <ul className="grid grid-cols-3 gap-2 sm:grid-cols-6" aria-label="Nodes per state" data-testid="state-counts">
+        {NODE_STATES.map((s) => {
+          const pressed = state === s;
+          return (
+            <li key={s}>
+              <button
+                type="button"
+                onClick={() => onState(pressed ? null : s)}
+                aria-pressed={pressed}
+                title={NODE_STATE_INFO[s].meaning}
+                data-testid={`count-${s}`}
+                className={`flex w-full flex-col items-start gap-1 rounded-lg border px-3 py-2 text-left hover:bg-dusk-800 ${
+                  pressed ? 'border-tide bg-dusk-800' : 'border-dusk-700 bg-dusk-900'
+                } ${view.counts[s] === 0 ? 'opacity-70' : ''}`}
+              >
+                <StateGlyph state={s} size={18} />
+                <span className="figures text-2xl leading-none">{view.counts[s]}</span>
+              </button>
+            </li>
+          );
+        })}
+      </ul>
+      {earliest ? (
+        <p className="rounded-lg border border-hazard/60 bg-dusk-900 px-4 py-3" data-testid="earliest-brownout">
+          <span className="text-ink-muted">Earliest projected brownout: </span>
+          <a href={`/nodes/${earliest.node_id}`} className="font-bold text-hazard underline-offset-2 hover:underline">{earliest.name}</a>
+          <span className="text-ink-muted"> at </span>
+          <time dateTime={earliest.at} className="figures font-bold" suppressHydrationWarning>{formatInTimeZone(new Date(earliest.at), earliest.time_zone)}</time>
+          <span className="text-ink-muted"> (in {formatDuration(secondsBetween(view.generated_at, earliest.at))})</span>
+        </p>
+      ) : (
+        <p className="rounded-lg border border-dusk-700 bg-dusk-900 px-4 py-3 text-ink-muted" data-testid="earliest-brownout">
+          No node is projected to brown out before its next recharge.
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,64 @@
+import type { FleetNodeWire } from '@/lib/db/queries/fleet';
+import { formatInTimeZone } from '@/lib/format/time';
+import { formatAge, formatJoules, formatMargin, formatPercent, formatWatts, formatWattHours } from '@/lib/format/units';
+import { formatDuration, secondsBetween } from './duration';
+
+/** One node's figures as the table and the cards show them; times in the node's site zone. */
+export function SocValue({ soc }: { soc: number | null }) {
+  return (
+    <span className="inline-flex flex-col gap-1">
+      <span className="figures">{formatPercent(soc)}</span>
+      {soc != null ? (
+        <span className="inline-block h-1.5 w-14 overflow-hidden rounded-full bg-dusk-700" aria-hidden="true">
+          <span className="block h-full bg-ember" style={{ width: `${Math.round(soc * 100)}%` }} />
+        </span>
+      ) : null}
+    </span>
+  );
+}
+
+export function ReserveValue({ joules }: { joules: number | null }) {
+  return (
+    <span className="figures">
+      {formatJoules(joules)}
+      {joules != null ? <span className="block text-xs text-ink-muted">{formatWattHours(joules)}</span> : null}
+    </span>
+  );
+}
+
+export function MarginValue({ margin }: { margin: number | null }) {
+  return <span className={`figures ${margin != null && margin < 1 ? 'font-bold text-hazard' : ''}`}>{formatMargin(margin)}</span>;
+}
+
+export function LocalTime({ at, timeZone, now, empty = '—' }: { at: string | null; timeZone: string; now: string; empty?: string }) {
+  if (!at) return <span className="text-ink-muted">{empty}</span>;
+  const seconds = secondsBetween(now, at)!;
+  return (
+    <span className="figures">
+      <time dateTime={at} suppressHydrationWarning>{formatInTimeZone(new Date(at), timeZone)}</time>
+      <span className="block text-xs text-ink-muted">{seconds >= 0 ? `in ${formatDuration(seconds)}` : `${formatDuration(-seconds)} ago`}</span>
+    </span>
+  );
+}
+
+export function AgeValue({ at, now }: { at: string | null; now: string }) {
+  return <span className="figures">{formatAge(at, new Date(now))}</span>;
+}
+
+/** Measured vs modelled bank-side draw; well above the model hints at a leak or a node stuck awake. */
+export function DrawValue({ node }: { node: FleetNodeWire }) {
+  const ratio = node.draw_ratio;
+  const high = ratio != null && ratio > 1.5;
+  return (
+    <span className="figures">
+      {formatWatts(node.measured_watts)} <span className="text-ink-muted">/ {formatWatts(node.load_watts)}</span>
+      {ratio != null ? (
+        <span className={`block text-xs ${high ? 'font-bold text-hazard' : 'text-ink-muted'}`}>
+          {ratio.toFixed(2)}× model{high ? ' — high' : ''}
+        </span>
+      ) : (
+        <span className="block text-xs text-ink-muted">not measured</span>
+      )}
+    </span>
+  );
+}
