@@ -32,16 +32,16 @@ export function AppShell({ member, children }: { member: Member; children: React
           <p className="text-xs uppercase tracking-[0.18em] text-ink-faint">Organization</p>
           <p className="font-bold" data-testid="org-name">{member.orgName}</p>
         </div>
-        <div className="text-right text-sm">
+        <Link href="/account" className="text-right text-sm hover:underline" aria-label={`Account of ${member.email}`}>
           <p className="text-ink-muted">{member.email}</p>
           <p className="text-xs text-ink-faint" data-testid="member-role">{member.role}</p>
-        </div>
+        </Link>
       </header>
 
       <div className="px-4 pb-24 pt-6 md:px-8 md:pb-10">{children}</div>
 
       <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 flex justify-around border-t border-dusk-800 bg-dusk-900 py-1.5 md:hidden">
-        {items.filter((i) => i.glyph !== 'account' && i.glyph !== 'team').slice(0, 5).map((i) => (
+        {items.filter((i) => i.phone).map((i) => (
           <Link key={i.href} href={i.href} className="flex flex-col items-center gap-0.5 px-2 py-1 text-[11px] text-ink-muted">
             <NavGlyph glyph={i.glyph} />
             {i.label}

@@ -8,6 +8,7 @@ const paths: Record<NavItem['glyph'], string> = {
   bench: 'M7 3h6M8 3v5l-4 8h12l-4-8V3',
   sites: 'M10 17s-5-5-5-9a5 5 0 0 1 10 0c0 4-5 9-5 9zM10 9.5a1.5 1.5 0 1 0 0-3 1.5 1.5 0 0 0 0 3z',
   team: 'M7 9a2.5 2.5 0 1 0 0-5 2.5 2.5 0 0 0 0 5zM2.5 16a4.5 4.5 0 0 1 9 0M13.5 8.5a2 2 0 1 0 0-4M14 12a4 4 0 0 1 3.5 4',
+  settings: 'M4 6h12M4 10h12M4 14h12M7 4v4M13 8v4M9 12v4',
   account: 'M10 10a3 3 0 1 0 0-6 3 3 0 0 0 0 6zM4 17a6 6 0 0 1 12 0',
 };
 
