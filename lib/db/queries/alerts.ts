@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { AlertKind, AlertStatus } from '../../alerts/kinds';
 import type { UnresolvedAlert } from '../../alerts/hysteresis';
+import type { NodeState } from '../../config/node-states';
 import type { DerivedStatus } from '../../status/derive-status';
 import type { NodeRow, SiteRow } from '../../status/node-spec';
 
@@ -100,8 +101,10 @@ export async function updateAlert(
 export interface AlertFilters {
   alertId?: number;
   siteId?: number;
+  nodeId?: number;
   kind?: AlertKind;
   status?: AlertStatus;
+  nodeState?: NodeState;
   limit?: number;
 }
 
@@ -120,28 +123,40 @@ export async function listAlerts(knex: Db, orgId: number, filters: AlertFilters 
     .join('nodes as n', 'n.id', 'a.node_id')
     .join('sites as s', 's.id', 'n.site_id')
     .leftJoin('users as u', 'u.id', 'a.acknowledged_by')
+    .leftJoin('node_status as st', 'st.node_id', 'n.id')
     .where('a.org_id', orgId)
-    .select('a.id', 'a.node_id', 'n.name as node_name', 's.id as site_id', 's.name as site_name', 's.time_zone', 'a.kind', 'a.status', 'a.detail',
+    .select('a.id', 'a.node_id', 'n.name as node_name', knex.raw("COALESCE(st.state, 'new') AS node_state"), 's.id as site_id', 's.name as site_name', 's.time_zone', 'a.kind', 'a.status', 'a.detail',
       'a.opened_at', 'a.updated_at', 'a.last_notified_at', 'a.acknowledged_at', 'u.name as acknowledged_by_name', 'a.resolved_at')
     .orderBy('a.opened_at', 'desc').orderBy('a.id', 'desc')
     .limit(filters.limit ?? 200);
   if (filters.alertId) q.andWhere('a.id', filters.alertId);
   if (filters.siteId) q.andWhere('s.id', filters.siteId);
+  // Scoped by a.org_id above: another organization's node id matches nothing.
+  if (filters.nodeId) q.andWhere('a.node_id', filters.nodeId);
   if (filters.kind) q.andWhere('a.kind', filters.kind);
   if (filters.status) q.andWhere('a.status', filters.status);
+  if (filters.nodeState) q.andWhereRaw("COALESCE(st.state, 'new') = ?", [filters.nodeState]);
   const alerts = await q;
   const ids = alerts.map((a) => a.id);
+  // Held mail is pending with a "held: …" note (lib/mail/sender.ts): counted apart, with when it goes.
   const mail = ids.length
     ? await knex('email_outbox').whereIn('alert_id', ids).groupBy('alert_id', 'status')
-      .select('alert_id', 'status', knex.raw('COUNT(*) AS n'), knex.raw('MAX(last_error) AS last_error'))
+      .select('alert_id', 'status', knex.raw('COUNT(*) AS n'), knex.raw('MAX(last_error) AS last_error'),
+        knex.raw("SUM(last_error LIKE 'held%') AS held"), knex.raw("MIN(CASE WHEN last_error LIKE 'held%' THEN next_attempt_at END) AS held_until"))
     : [];
   return alerts.map((a) => {
     const own = mail.filter((m) => m.alert_id === a.id);
     const count = (status: string) => Number(own.find((m) => m.status === status)?.n ?? 0);
+    const pending = own.find((m) => m.status === 'pending');
     return {
       ...a,
       detail: parseJson(a.detail),
-      mail: { pending: count('pending'), sent: count('sent'), dead: count('dead'), last_error: own.find((m) => m.status !== 'sent')?.last_error ?? null },
+      mail: {
+        pending: count('pending'), sent: count('sent'), dead: count('dead'),
+        held: Number(pending?.held ?? 0), held_until: pending?.held_until ?? null,
+        // A dead letter's error matters most; else a retry's (or the hold's note).
+        last_error: own.find((m) => m.status === 'dead')?.last_error ?? pending?.last_error ?? null,
+      },
     };
   });
 }
