@@ -79,9 +79,10 @@ export function timeMarksPlugin(marks: { at: number; label: string; color: strin
         ctx.save();
         ctx.font = figuresFont();
         ctx.textBaseline = 'alphabetic';
-        for (const m of marks) {
+        marks.forEach((m, i) => {
           const x = u.valToPos(m.at, 'x', true);
-          if (!Number.isFinite(x)) continue;
+          // a mark outside the plotted span would be drawn over the axis: leave it out
+          if (!Number.isFinite(x) || x < left - 1 || x > left + width + 1) return;
           ctx.strokeStyle = m.color;
           ctx.fillStyle = m.color;
           ctx.lineWidth = 2 * devicePixelRatio;
@@ -94,8 +95,9 @@ export function timeMarksPlugin(marks: { at: number; label: string; color: strin
           const room = left + width - x;
           const textWidth = ctx.measureText(m.label).width;
           ctx.textAlign = room < textWidth + 8 * devicePixelRatio ? 'right' : 'left';
-          ctx.fillText(m.label, ctx.textAlign === 'right' ? x - 4 * devicePixelRatio : x + 4 * devicePixelRatio, top + height - 18 * devicePixelRatio);
-        }
+          // each further mark's label one line higher, so two close marks stay readable
+          ctx.fillText(m.label, ctx.textAlign === 'right' ? x - 4 * devicePixelRatio : x + 4 * devicePixelRatio, top + height - (18 + 14 * i) * devicePixelRatio);
+        });
         ctx.restore();
       },
     },

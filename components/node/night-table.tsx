@@ -1,0 +1,95 @@
+'use client';
+
+import { formatJoules, formatMargin, formatVolts, formatWatts } from '@/lib/format/units';
+import type { NightRowWire } from '@/lib/series/wire';
+import { formatLocal } from './local-time';
+import { useNightTable } from './use-node-data';
+
+/** The last fourteen nights, newest first: a table on wide screens, one card per night on a phone. */
+export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: string }) {
+  const { data, isPending, isError, error, refetch } = useNightTable({ nodeId });
+  const zone = data?.time_zone ?? timeZone;
+  const t = (s: number | null) => (s === null ? '—' : formatLocal(s, zone, 'HH:mm'));
+  const day = (s: number) => formatLocal(s, zone, 'EEE d MMM');
+  const floor = data?.burst_floor_volts ?? 0;
+  const lowTone = (n: NightRowWire) => (n.min_volts !== null && n.min_volts <= floor * 1.02 ? 'text-hazard' : '');
+
+  return (
+    <section aria-labelledby="nights-heading" data-testid="night-table">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 id="nights-heading" className="text-lg font-bold">Night by night</h2>
+        <a href={`/api/v1/nodes/${nodeId}/nights?format=csv`} download className="text-sm text-tide underline-offset-2 hover:underline" data-testid="nights-csv">
+          Download CSV
+        </a>
+      </div>
+      <p className="text-xs text-ink-muted">Dusk and dawn are the sun crossing the site&apos;s recharge elevation; times in {zone}.</p>
+
+      {isPending ? <div className="mt-3 h-40 animate-pulse rounded-lg bg-dusk-900" aria-label="Loading the nights" /> : null}
+      {isError ? (
+        <div role="alert" className="mt-3 text-sm text-hazard">
+          The nights could not be loaded: {error.message} <button type="button" className="underline" onClick={() => refetch()}>Try again</button>
+        </div>
+      ) : null}
+      {data && data.nights.length === 0 ? <p className="mt-3 text-ink-muted">No nights yet.</p> : null}
+      {data && data.nights.length > 0 ? (
+        <>
+          <div className="mt-3 hidden overflow-x-auto md:block">
+            <table className="w-full text-left text-sm">
+              <caption className="sr-only">Each night: dusk and dawn, stored energy at both, lowest volts, measured and modelled draw, margin at dusk</caption>
+              <thead className="text-[11px] uppercase tracking-wider text-ink-faint">
+                <tr>
+                  <th scope="col" className="py-2 pr-3">Night of</th>
+                  <th scope="col" className="pr-3">Dusk → dawn</th>
+                  <th scope="col" className="pr-3 text-right">Energy dusk (J)</th>
+                  <th scope="col" className="pr-3 text-right">Energy dawn (J)</th>
+                  <th scope="col" className="pr-3 text-right">Min (V)</th>
+                  <th scope="col" className="pr-3 text-right">Draw measured / model (W)</th>
+                  <th scope="col" className="text-right">Margin at dusk</th>
+                </tr>
+              </thead>
+              <tbody>
+                {data.nights.map((n) => (
+                  <tr key={n.dusk_at} className="border-t border-dusk-800" data-testid="night-row">
+                    <th scope="row" className="py-2 pr-3 font-bold">{day(n.dusk_at)}{n.complete ? '' : <span className="ml-2 text-xs font-normal text-tide">tonight</span>}</th>
+                    <td className="figures pr-3">{t(n.dusk_at)} → {t(n.dawn_at)}</td>
+                    <td className="figures pr-3 text-right">{formatJoules(n.dusk_energy_joules)}</td>
+                    <td className="figures pr-3 text-right">{formatJoules(n.dawn_energy_joules)}</td>
+                    <td className={`figures pr-3 text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</td>
+                    <td className="figures pr-3 text-right"><Draw n={n} /></td>
+                    <td className={`figures text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <ul className="mt-3 grid gap-2 md:hidden" aria-label="Nights">
+            {data.nights.map((n) => (
+              <li key={n.dusk_at} className="rounded-lg border border-dusk-800 bg-dusk-900/70 p-3" data-testid="night-card">
+                <div className="flex items-baseline justify-between">
+                  <p className="font-bold">{day(n.dusk_at)}{n.complete ? '' : <span className="ml-2 text-xs font-normal text-tide">tonight</span>}</p>
+                  <p className="figures text-sm text-ink-muted">{t(n.dusk_at)} → {t(n.dawn_at)}</p>
+                </div>
+                <dl className="figures mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+                  <dt className="font-sans text-ink-faint">Energy dusk</dt><dd className="text-right">{formatJoules(n.dusk_energy_joules)}</dd>
+                  <dt className="font-sans text-ink-faint">Energy dawn</dt><dd className="text-right">{formatJoules(n.dawn_energy_joules)}</dd>
+                  <dt className="font-sans text-ink-faint">Lowest</dt><dd className={`text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</dd>
+                  <dt className="font-sans text-ink-faint">Draw meas. / model</dt><dd className="text-right"><Draw n={n} /></dd>
+                  <dt className="font-sans text-ink-faint">Margin at dusk</dt><dd className={`text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</dd>
+                </dl>
+              </li>
+            ))}
+          </ul>
+        </>
+      ) : null}
+    </section>
+  );
+}
+
+function Draw({ n }: { n: NightRowWire }) {
+  if (n.measured_watts === null) return <span className="text-ink-faint">too few readings</span>;
+  return <>{formatWatts(n.measured_watts)} <span className="text-ink-faint">/</span> {formatWatts(n.modelled_watts)}</>;
+}
+
+function marginTone(m: number | null): string {
+  return m === null ? 'text-ink-faint' : m < 1 ? 'text-hazard' : m < 1.5 ? 'text-ink' : 'text-ember';
+}

@@ -1,0 +1,34 @@
+import { formatInTimeZone } from '@/lib/format/time';
+import { formatMargin } from '@/lib/format/units';
+import type { StatusReply } from '@/lib/series/wire';
+
+/** The one sentence that answers "does it make it to sunrise?", in the site's local time. */
+export function tonightSentence({ s }: { s: StatusReply }): { text: string; tone: 'ember' | 'hazard' | 'muted' } {
+  const tz = s.node.time_zone;
+  const at = (seconds: number | null) => (seconds === null ? '—' : formatInTimeZone(new Date(seconds * 1000), tz));
+  const last = at(s.last_reading_at);
+  switch (s.state) {
+    case 'new':
+      return { text: 'No reading has arrived yet: nothing to project.', tone: 'muted' };
+    case 'dark':
+      return { text: `Quiet since ${last}, close to its burst floor: presumed browned out. It returns once the bank climbs back to its start voltage.`, tone: 'hazard' };
+    case 'silent':
+      return { text: `Quiet since ${last} while its bank was healthy: look at the link or the firmware.`, tone: 'muted' };
+    default:
+      break;
+  }
+  if (s.brownout_at !== null) {
+    const early = s.recharge_at !== null ? ` — ${spanWords(s.recharge_at - s.brownout_at)} before the recharge at ${at(s.recharge_at)}` : '';
+    return { text: `Projected to brown out at ${at(s.brownout_at)}${early}.`, tone: 'hazard' };
+  }
+  if (s.recharge_at === null) return { text: 'No recharge within seven days (polar night): the margin covers the week ahead.', tone: 'muted' };
+  return { text: `Reaches the recharge at ${at(s.recharge_at)} with ${formatMargin(s.margin)} the energy it needs.`, tone: 'ember' };
+}
+
+export function spanWords(seconds: number): string {
+  const minutes = Math.max(0, Math.round(seconds / 60));
+  if (minutes < 60) return `${minutes} min`;
+  const h = Math.floor(minutes / 60);
+  const m = minutes % 60;
+  return m ? `${h} h ${m} min` : `${h} h`;
+}

@@ -1,0 +1,60 @@
+import { drawOverWindow } from '../alerts/night-draw';
+import { energyJoules, modelBank, nightMargin, type VoltageSample } from '../energy';
+import type { NodeModelSpec } from '../status/node-spec';
+import type { NightRowWire } from './wire';
+
+/**
+ * One row per night (sun below the site's recharge elevation): the bank at dusk and at dawn
+ * (the first and last reading inside the night), its lowest volts, the draw measured from the
+ * slope of ½·C·V² over the night against the modelled draw at the cadence seen (the same fit
+ * the draw-anomaly alert uses), and the margin the model gave at dusk for that night's length.
+ * Samples carry calibrated volts; instants leave as Unix seconds.
+ */
+export function buildNightRows({
+  spec,
+  nights,
+  samples,
+  now,
+}: {
+  spec: NodeModelSpec;
+  nights: { start: Date; end: Date }[];
+  samples: VoltageSample[];
+  now: Date;
+}): NightRowWire[] {
+  const farads = modelBank({ bank: spec.bank }).farads;
+  const sorted = [...samples].sort((a, b) => ms(a.t) - ms(b.t));
+  return nights.map((night) => {
+    const inside = sorted.filter((s) => ms(s.t) >= night.start.getTime() && ms(s.t) <= night.end.getTime());
+    const first = inside[0];
+    const last = inside[inside.length - 1];
+    const draw = drawOverWindow({ spec, samples: inside });
+    const margin = first ? nightMargin({ ...spec, volts: first.volts, at: new Date(ms(first.t)), rechargeAt: night.end }) : null;
+    return {
+      dusk_at: night.start.getTime() / 1000,
+      dawn_at: night.end.getTime() / 1000,
+      complete: night.end.getTime() <= now.getTime(),
+      readings: inside.length,
+      dusk_reading_at: first ? ms(first.t) / 1000 : null,
+      dawn_reading_at: last ? ms(last.t) / 1000 : null,
+      dusk_volts: first ? first.volts : null,
+      dawn_volts: last ? last.volts : null,
+      dusk_energy_joules: first ? energyJoules({ farads, volts: first.volts }) : null,
+      dawn_energy_joules: last ? energyJoules({ farads, volts: last.volts }) : null,
+      min_volts: inside.length ? inside.reduce((m, s) => Math.min(m, s.volts), Infinity) : null,
+      measured_watts: draw?.measuredWatts ?? null,
+      modelled_watts: draw?.modelledWatts ?? null,
+      draw_ratio: draw && Number.isFinite(draw.ratio) ? draw.ratio : null,
+      margin_at_dusk: margin && Number.isFinite(margin.margin) ? margin.margin : null,
+      projected_brownout_at: margin?.brownoutAt ? margin.brownoutAt.getTime() / 1000 : null,
+    };
+  });
+}
+
+/** The last `count` nights that have begun by `now`, newest first; tonight (still dark) included. */
+export function lastNights({ windows, now, count }: { windows: { start: Date; end: Date }[]; now: Date; count: number }) {
+  return windows.filter((w) => w.start.getTime() <= now.getTime()).slice(-count).reverse();
+}
+
+function ms(t: Date | number): number {
+  return t instanceof Date ? t.getTime() : t;
+}

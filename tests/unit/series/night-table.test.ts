@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest';
+import { modelBank, nightMargin } from '@/lib/energy';
+import { buildNightRows, lastNights } from '@/lib/series/night-table';
+import { bank, converter, load, site } from '../energy/fixtures';
+
+const spec = { bank, converter, load, site };
+const farads = modelBank({ bank }).farads; // 3·100/2 = 150 F (derived here)
+const start = new Date('2026-12-20T16:00:00Z');
+const end = new Date('2026-12-21T07:00:00Z');
+
+/** A bank drawn at a constant 2 mW from 3 V: V(t) = √(V0² − 2Pt/C) (constant-power discharge, derived here). */
+function samples(stepSeconds: number) {
+  const out = [];
+  for (let t = -3600; t <= (end.getTime() - start.getTime()) / 1000 + 3600; t += stepSeconds) {
+    const inside = Math.max(0, Math.min(t, (end.getTime() - start.getTime()) / 1000));
+    out.push({ t: new Date(start.getTime() + t * 1000), volts: Math.sqrt(9 - (2 * 0.002 * inside) / farads) });
+  }
+  return out;
+}
+
+describe('buildNightRows', () => {
+  const [row] = buildNightRows({ spec, nights: [{ start, end }], samples: samples(600), now: new Date('2026-12-22T00:00:00Z') });
+
+  it('takes dusk and dawn from the first and last reading inside the night', () => {
+    expect(row.dusk_at).toBe(start.getTime() / 1000);
+    expect(row.dawn_at).toBe(end.getTime() / 1000);
+    expect(row.dusk_at).toBeLessThan(row.dawn_at);
+    expect(row.dusk_volts).toBeCloseTo(3, 9);
+    expect(row.dusk_energy_joules).toBeCloseTo(0.5 * 150 * 9, 6); // ½·C·V² (OpenStax College Physics 2e §19.7)
+    expect(row.min_volts).toBe(row.dawn_volts);
+    expect(row.readings).toBe(91); // 15 h at one reading every 10 min, both ends included
+    expect(row.complete).toBe(true);
+  });
+
+  it('measures the draw from the slope of ½·C·V²: 2 mW in, 2 mW out', () => {
+    // constant-power discharge: ½C(V0² − V²) = P·t exactly, so the fitted slope is P
+    expect(row.measured_watts).toBeCloseTo(0.002, 6);
+    expect(row.modelled_watts).toBeGreaterThan(0);
+  });
+
+  it('gives the margin the model gives from the dusk reading to dawn', () => {
+    const m = nightMargin({ ...spec, volts: 3, at: start, rechargeAt: end });
+    expect(row.margin_at_dusk).toBeCloseTo(m.margin, 9);
+  });
+
+  it('leaves a night without readings empty rather than invented', () => {
+    const [empty] = buildNightRows({ spec, nights: [{ start, end }], samples: [], now: end });
+    expect(empty).toMatchObject({ readings: 0, dusk_volts: null, min_volts: null, measured_watts: null, margin_at_dusk: null });
+  });
+});
+
+describe('lastNights', () => {
+  it('keeps the nights begun by now, newest first', () => {
+    const w = (d: number) => ({ start: new Date(Date.UTC(2026, 11, d, 16)), end: new Date(Date.UTC(2026, 11, d + 1, 7)) });
+    const nights = lastNights({ windows: [w(1), w(2), w(3), w(4)], now: new Date(Date.UTC(2026, 11, 3, 20)), count: 2 });
+    expect(nights.map((n) => n.start.getUTCDate())).toEqual([3, 2]);
+  });
+});
