@@ -37,6 +37,8 @@ function writeConfig(profile: Profile): string {
     `pid-file=${path.join(profile.dataDir, 'mysqld.pid')}`,
     `log-error=${path.join(profile.dataDir, 'mysqld.err')}`,
     'innodb_flush_log_at_trx_commit=1',
+    // No gap locks: posts of different nodes never wait on each other (common practice for OLTP).
+    'transaction-isolation=READ-COMMITTED',
     'innodb_doublewrite=1',
     'innodb_buffer_pool_size=512M',
     'innodb_log_file_size=256M',
@@ -105,9 +107,12 @@ export async function provisionDatabase(profile: Profile, opts: { fresh?: boolea
   try {
     if (opts.fresh) await c.query(`DROP DATABASE IF EXISTS \`${profile.dbName}\``);
     await c.query(`CREATE DATABASE IF NOT EXISTS \`${profile.dbName}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-    await c.query(`CREATE USER IF NOT EXISTS 'duskwatch_app'@'127.0.0.1' IDENTIFIED BY ?`, [dbPassword]);
-    await c.query(`ALTER USER 'duskwatch_app'@'127.0.0.1' IDENTIFIED BY ?`, [dbPassword]);
-    await c.query(`GRANT SELECT, INSERT, UPDATE, DELETE ON \`${profile.dbName}\`.* TO 'duskwatch_app'@'127.0.0.1'`);
+    // The same application user over TCP (127.0.0.1) and over the private socket (localhost).
+    for (const host of ['127.0.0.1', 'localhost']) {
+      await c.query(`CREATE USER IF NOT EXISTS 'duskwatch_app'@'${host}' IDENTIFIED BY ?`, [dbPassword]);
+      await c.query(`ALTER USER 'duskwatch_app'@'${host}' IDENTIFIED BY ?`, [dbPassword]);
+      await c.query(`GRANT SELECT, INSERT, UPDATE, DELETE ON \`${profile.dbName}\`.* TO 'duskwatch_app'@'${host}'`);
+    }
   } finally {
     await c.end();
   }

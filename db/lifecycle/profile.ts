@@ -77,6 +77,7 @@ export function profileEnv(profile: Profile): Record<string, string> {
     NEXT_TELEMETRY_DISABLED: '1',
     DB_HOST: '127.0.0.1',
     DB_PORT: String(profile.dbPort),
+    DB_SOCKET: profile.socketPath,
     DB_NAME: profile.dbName,
     DB_USER: 'duskwatch_app',
     DB_PASSWORD: secrets.dbPassword,

@@ -10,8 +10,7 @@ export function db(): Knex {
     holder.__duskwatchKnex = knexFactory({
       client: 'mysql2',
       connection: {
-        host: env.DB_HOST,
-        port: env.DB_PORT,
+        ...(env.DB_SOCKET ? { socketPath: env.DB_SOCKET } : { host: env.DB_HOST, port: env.DB_PORT }),
         user: env.DB_USER,
         password: env.DB_PASSWORD,
         database: env.DB_NAME,

@@ -8,12 +8,14 @@ import { parseIngestBody } from './body';
 import { authenticateDevice, type DeviceContext } from './device-auth';
 import type { NormalizedReading } from './normalize';
 import { takeToken } from './rate-limit';
+import { storeAllNew } from './store-fast';
 
 /**
  * POST /api/v1/readings (DESIGN.md §5). The fixed order: authenticate the device (one query
  * that also loads the node's model) → rate limit → parse and validate the whole post → store
  * the readings, fold them into the chart rollups and update the node's status in ONE
- * transaction → only after the commit returned, answer 200. Storage down or uncertain → 503
+ * transaction (sent as one packet when every reading is new; the careful path sorts out
+ * duplicates) → only after the commit returned, answer 200. Storage down or uncertain → 503
  * with Retry-After; nothing half stored.
  */
 export async function ingest(request: Request): Promise<Response> {
@@ -23,6 +25,14 @@ export async function ingest(request: Request): Promise<Response> {
   if (!limit.ok) throw problems.tooMany(limit.retryAfterSeconds);
   const readings = await parseIngestBody(request, receivedAt);
   let reply = { state: device.state ?? 'new', next_report_s: device.nextReportSeconds ?? device.node.interval_seconds };
+  const unique = new Map(readings.map((r) => [r.t.getTime(), r]));
+  if (unique.size === readings.length && readings.length <= 500) {
+    const status = statusAfter(device, readings, receivedAt);
+    if (await storage(() => storeAllNew({ nodeId: device.nodeId, orgId: device.orgId, readings, status }))) {
+      if (status) reply = { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };
+      return Response.json({ accepted: readings.length, duplicates: 0, ...reply });
+    }
+  }
   const result = await storage(() =>
     storeReadings(device.nodeId, readings, {
       within: async (trx, fresh) => {
@@ -34,17 +44,22 @@ export async function ingest(request: Request): Promise<Response> {
   return Response.json({ accepted: result.accepted, duplicates: result.duplicates, ...reply });
 }
 
-/** The node's status from the newest reading, when this post brought a newer one. */
-async function updateStatus(trx: Knex.Transaction, device: DeviceContext, fresh: NormalizedReading[], now: Date) {
+/** The node's status from the newest reading, when this post brings a newer one. */
+function statusAfter(device: DeviceContext, fresh: NormalizedReading[], now: Date) {
   if (!fresh.length) return null;
   const newest = fresh.reduce((a, b) => (b.t > a.t ? b : a));
   if (device.lastReadingAt && newest.t <= device.lastReadingAt) return null;
-  const status = deriveNodeStatus({
+  return deriveNodeStatus({
     spec: modelSpecFromRows(device.node, device.site),
     latest: { t: newest.t, volts: calibratedVolts(device.node, newest.v), panelVolts: newest.vp },
     now,
     thresholds: device.thresholds,
   });
+}
+
+async function updateStatus(trx: Knex.Transaction, device: DeviceContext, fresh: NormalizedReading[], now: Date) {
+  const status = statusAfter(device, fresh, now);
+  if (!status) return null;
   await trx('node_status').insert({ node_id: device.nodeId, org_id: device.orgId, ...status }).onConflict('node_id').merge();
   return { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };
 }

@@ -1,5 +1,6 @@
 import { createServer } from 'node:http';
 import next from 'next';
+import { isFastRoute, serveFastRoute } from './fast-routes';
 
 /**
  * The production HTTP server: Next's request handler behind a plain Node server, so that the
@@ -10,6 +11,7 @@ import next from 'next';
 const port = Number(process.env.PORT ?? 3000);
 const host = process.env.HOST ?? '127.0.0.1';
 const trustProxy = process.env.TRUST_PROXY === '1';
+const origin = `http://${host}:${port}`;
 
 const app = next({ dev: false, hostname: host, port, dir: process.cwd() });
 const handle = app.getRequestHandler();
@@ -22,6 +24,10 @@ app.prepare().then(() => {
     }
     // Internal header of Next's; a client must never be able to send it.
     delete req.headers['x-middleware-subrequest'];
+    if (isFastRoute(req)) {
+      serveFastRoute(req, res, origin).catch(() => { if (!res.headersSent) res.writeHead(500); res.end(); });
+      return;
+    }
     handle(req, res);
   });
   server.keepAliveTimeout = 65_000;

@@ -3,7 +3,7 @@ import autocannon from 'autocannon';
 import mysql from 'mysql2/promise';
 import { withPeakRss } from './measure';
 
-interface DbConn { host: string; port: number; user: string; password: string; database: string }
+interface DbConn { socketPath: string; user: string; password: string; database: string }
 
 const BATCH = 500;
 const CLIENTS = 8;

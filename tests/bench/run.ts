@@ -22,7 +22,8 @@ async function main() {
   await withTestStack(profile, env, async () => {
     const root = rootKnex(profile);
     const fleet = await createBenchFleet(root, { nodes: 1000, secret: env.DEVICE_TOKEN_SECRET });
-    const conn = { host: '127.0.0.1', port: profile.dbPort, user: 'duskwatch_app', password: env.DB_PASSWORD, database: profile.dbName };
+    // The same transport the app uses (the private Unix socket), so the ratio compares like with like.
+    const conn = { socketPath: profile.socketPath, user: 'duskwatch_app', password: env.DB_PASSWORD, database: profile.dbName };
     const day = 86_400_000;
     const startRaw = Date.now() - 380 * day;
     const startHttp = Date.now() - 300 * day;

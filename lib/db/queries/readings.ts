@@ -32,19 +32,31 @@ export async function storeReadings(
 async function insertNew(trx: Knex.Transaction, nodeId: number, readings: NormalizedReading[]) {
   const unique = new Map<number, NormalizedReading>();
   for (const r of readings) if (!unique.has(r.t.getTime())) unique.set(r.t.getTime(), r);
-  const times = [...unique.values()].map((r) => r.t);
+  const candidates = [...unique.values()];
+  // Most posts carry only new readings: insert them in one go. A duplicate key fails the
+  // statement alone (the transaction stays usable), and then the slow path sorts them out.
+  if (candidates.length <= 500) {
+    try {
+      await insertRows(trx, nodeId, candidates);
+      return { accepted: candidates.length, duplicates: readings.length - candidates.length, stored: candidates };
+    } catch (e) {
+      if ((e as { code?: string }).code !== 'ER_DUP_ENTRY') throw e;
+    }
+  }
   const existing = new Set<number>();
+  const times = candidates.map((r) => r.t);
   for (let i = 0; i < times.length; i += 500) {
     const rows = await trx('readings').where('node_id', nodeId).whereIn('t', times.slice(i, i + 500)).select('t');
     for (const row of rows) existing.add(new Date(row.t).getTime());
   }
-  const fresh = [...unique.values()].filter((r) => !existing.has(r.t.getTime()));
-  for (let i = 0; i < fresh.length; i += 500) {
-    await trx('readings').insert(
-      fresh.slice(i, i + 500).map((r) => ({ node_id: nodeId, t: r.t, v: r.v, vp: r.vp, temp_c: r.temp, rssi_dbm: r.rssi, seq: r.seq })),
-    );
-  }
+  const fresh = candidates.filter((r) => !existing.has(r.t.getTime()));
+  for (let i = 0; i < fresh.length; i += 500) await insertRows(trx, nodeId, fresh.slice(i, i + 500));
   return { accepted: fresh.length, duplicates: readings.length - fresh.length, stored: fresh };
+}
+
+function insertRows(trx: Knex.Transaction, nodeId: number, rows: NormalizedReading[]) {
+  if (!rows.length) return Promise.resolve();
+  return trx('readings').insert(rows.map((r) => ({ node_id: nodeId, t: r.t, v: r.v, vp: r.vp, temp_c: r.temp, rssi_dbm: r.rssi, seq: r.seq })));
 }
 
 export async function latestReading(nodeId: number, knex: Knex | Knex.Transaction = db()) {

@@ -34,7 +34,12 @@ export async function rebuildRollups(knex: Knex | Knex.Transaction, nodeId: numb
  * Exact because only new readings are passed: duplicates never reach here.
  */
 export async function applyRollupDeltas(trx: Knex | Knex.Transaction, nodeId: number, readings: { t: Date; v: number; vp: number | null }[]): Promise<void> {
-  if (!readings.length) return;
+  const statement = rollupDeltaStatement(nodeId, readings);
+  if (statement) await trx.raw(statement.sql, statement.bindings);
+}
+
+export function rollupDeltaStatement(nodeId: number, readings: { t: Date; v: number; vp: number | null }[]): { sql: string; bindings: (number | Date | null)[] } | null {
+  if (!readings.length) return null;
   const buckets = new Map<string, { bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null }>();
   for (const r of readings) {
     const ms = r.t.getTime();
@@ -53,15 +58,13 @@ export async function applyRollupDeltas(trx: Knex | Knex.Transaction, nodeId: nu
   }
   const rows = [...buckets.values()];
   const placeholders = rows.map(() => '(?, ?, FROM_UNIXTIME(?), ?, ?, ?, ?, ?, ?, ?)').join(', ');
-  const values = rows.flatMap((b) => [nodeId, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, new Date(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
-  await trx.raw(
-    `INSERT INTO reading_rollups (node_id, bucket_seconds, bucket_start, n, v_min, v_max, v_sum, v_last, t_last, vp_max)
+  const bindings = rows.flatMap((b) => [nodeId, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, new Date(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
+  const sql = `INSERT INTO reading_rollups (node_id, bucket_seconds, bucket_start, n, v_min, v_max, v_sum, v_last, t_last, vp_max)
      VALUES ${placeholders}
      ON DUPLICATE KEY UPDATE
        v_last = IF(VALUES(t_last) > t_last, VALUES(v_last), v_last),
        t_last = GREATEST(t_last, VALUES(t_last)),
        n = n + VALUES(n), v_min = LEAST(v_min, VALUES(v_min)), v_max = GREATEST(v_max, VALUES(v_max)),
-       v_sum = v_sum + VALUES(v_sum), vp_max = IF(vp_max IS NULL, VALUES(vp_max), GREATEST(vp_max, COALESCE(VALUES(vp_max), vp_max)))`,
-    values,
-  );
+       v_sum = v_sum + VALUES(v_sum), vp_max = IF(vp_max IS NULL, VALUES(vp_max), GREATEST(vp_max, COALESCE(VALUES(vp_max), vp_max)))`;
+  return { sql, bindings };
 }

@@ -1,0 +1,45 @@
+import mysql from 'mysql2/promise';
+import { fastPool } from '../db/fast-pool';
+import { rollupDeltaStatement } from '../db/queries/rollups';
+import type { DerivedStatus } from '../status/derive-status';
+import type { NormalizedReading } from './normalize';
+
+/**
+ * The optimistic path of a post whose readings are all new (the usual case): readings,
+ * rollup deltas and the node status in one transaction sent as one packet. A duplicate key
+ * rolls the whole packet back and answers `false`: the caller then takes the careful path.
+ */
+// Dates are written as UTC, as everywhere else in the schema.
+const format = (sql: string, values: unknown[]) => mysql.format(sql, values as Parameters<typeof mysql.format>[1], false, 'Z');
+
+const STATUS_COLUMNS = ['state', 'last_reading_at', 'volts', 'panel_volts', 'energy_joules', 'soc', 'burst_floor_volts', 'reserve_joules', 'margin', 'load_watts', 'recharge_at', 'brownout_at', 'next_report_s', 'evaluated_at'] as const;
+
+export async function storeAllNew(opts: { nodeId: number; orgId: number; readings: NormalizedReading[]; status: DerivedStatus | null }): Promise<boolean> {
+  const { nodeId, orgId, readings, status } = opts;
+  const parts: string[] = ['START TRANSACTION'];
+  const rows = readings.map((r) => [nodeId, r.t, r.v, r.vp, r.temp, r.rssi, r.seq]);
+  parts.push(format('INSERT INTO readings (node_id, t, v, vp, temp_c, rssi_dbm, seq) VALUES ?', [rows]));
+  const rollup = rollupDeltaStatement(nodeId, readings);
+  if (rollup) parts.push(format(rollup.sql, rollup.bindings));
+  if (status) {
+    const values = STATUS_COLUMNS.map((c) => status[c]);
+    parts.push(format(
+      `INSERT INTO node_status (node_id, org_id, ${STATUS_COLUMNS.join(', ')}) VALUES (?, ?, ${STATUS_COLUMNS.map(() => '?').join(', ')})
+       ON DUPLICATE KEY UPDATE ${STATUS_COLUMNS.map((c) => `${c} = VALUES(${c})`).join(', ')}`,
+      [nodeId, orgId, ...values],
+    ));
+  }
+  parts.push('COMMIT');
+  const conn = await fastPool().getConnection();
+  try {
+    await conn.query(parts.join(';\n'));
+    return true;
+  } catch (e) {
+    // Whatever failed, nothing of this packet may stay: the open transaction is rolled back.
+    await conn.query('ROLLBACK').catch(() => conn.destroy());
+    if ((e as { code?: string }).code === 'ER_DUP_ENTRY') return false;
+    throw e;
+  } finally {
+    conn.release();
+  }
+}

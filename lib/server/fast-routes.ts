@@ -1,0 +1,39 @@
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import { Readable } from 'node:stream';
+import { problemResponse } from '../errors';
+import { ingest } from '../ingest/ingest';
+
+/**
+ * The device ingest route served straight from the Node server, ahead of Next's router: the
+ * same handler as app/api/v1/readings/route.ts (lib/ingest/ingest.ts), without the page
+ * machinery around it, because devices post far more often than people click.
+ */
+const HEADERS = { 'x-content-type-options': 'nosniff', 'referrer-policy': 'strict-origin-when-cross-origin', 'cache-control': 'no-store' };
+
+export function isFastRoute(req: IncomingMessage): boolean {
+  return req.method === 'POST' && (req.url ?? '').split('?')[0] === '/api/v1/readings';
+}
+
+export async function serveFastRoute(req: IncomingMessage, res: ServerResponse, origin: string): Promise<void> {
+  let response: Response;
+  try {
+    const headers = new Headers();
+    for (const [name, value] of Object.entries(req.headers)) {
+      if (value !== undefined) headers.set(name, Array.isArray(value) ? value.join(', ') : value);
+    }
+    const request = new Request(new URL(req.url ?? '/', origin), {
+      method: req.method,
+      headers,
+      body: Readable.toWeb(req) as ReadableStream,
+      duplex: 'half',
+    } as RequestInit);
+    response = await ingest(request);
+  } catch (error) {
+    response = problemResponse(error);
+  }
+  const body = Buffer.from(await response.arrayBuffer());
+  const out: Record<string, string> = { ...HEADERS, 'content-length': String(body.length) };
+  response.headers.forEach((value, name) => { out[name] = value; });
+  res.writeHead(response.status, out);
+  res.end(body);
+}
