@@ -12,7 +12,7 @@ import { normalizeReading, type NormalizedReading } from './normalize';
  * and stored in batches. Unlike a device post, an import keeps its good lines and reports
  * the bad ones with reasons; the report is kept in `imports`.
  */
-const BATCH = 1000;
+const BATCH = 500; // one multi-row INSERT a batch when the lines are new
 const MAX_REPORTED = 200;
 
 export interface ImportReport {

@@ -9,7 +9,7 @@ const BATCH = 500;
 const CLIENTS = 8;
 
 /** Baseline: raw mysql2 multi-row inserts, 500 rows a statement, 8 connections at once. */
-export async function rawInsertRowsPerSecond(conn: DbConn, nodeIds: number[], totalRows: number, startMs: number): Promise<number> {
+export async function rawInsertRowsPerSecond(conn: DbConn, nodeIds: number[], totalRows: number, startMs: number, volts: (i: number) => number = (i) => 4.5 + (i % 50) / 100): Promise<number> {
   const pool = mysql.createPool({ ...conn, connectionLimit: CLIENTS });
   let next = 0;
   const statements = Math.ceil(totalRows / BATCH);
@@ -18,13 +18,14 @@ export async function rawInsertRowsPerSecond(conn: DbConn, nodeIds: number[], to
     for (let s = next++; s < statements; s = next++) {
       const nodeId = nodeIds[s % nodeIds.length];
       const base = startMs + Math.floor(s / nodeIds.length) * BATCH * 60_000;
-      const rows = Array.from({ length: BATCH }, (_, i) => [nodeId, new Date(base + i * 60_000), 4.5 + (i % 50) / 100]);
+      const first = Math.floor(s / nodeIds.length) * BATCH;
+      const rows = Array.from({ length: Math.min(BATCH, totalRows - s * BATCH) }, (_, i) => [nodeId, new Date(base + i * 60_000), volts(first + i)]);
       await pool.query('INSERT INTO readings (node_id, t, v) VALUES ?', [rows]);
     }
   }));
   const seconds = (performance.now() - t0) / 1000;
   await pool.end();
-  return (statements * BATCH) / seconds;
+  return totalRows / seconds;
 }
 
 /** The same rows through POST /api/v1/readings in batches of 500, 8 clients at once. */
