@@ -109,6 +109,21 @@ describe('POST /api/v1/readings (DESIGN.md §5)', () => {
     }
   });
 
+  it('refuses an expired token signed with the server key, and one for another audience', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { currentTestProfile } = await import('@/db/lifecycle/profile');
+    const secret = JSON.parse(readFileSync(`${currentTestProfile().dataDir}/secrets.json`, 'utf8')).deviceTokenSecret as string;
+    const cred = await db()('device_credentials').where({ node_id: node.nodeId }).whereNull('revoked_at').first('credential_id');
+    const key = new TextEncoder().encode(secret);
+    const base = () => new SignJWT({}).setProtectedHeader({ alg: 'HS256' }).setSubject(String(node.nodeId)).setJti(cred.credential_id).setIssuer('duskwatch');
+    const expired = await base().setAudience('duskwatch:ingest').setIssuedAt(1_700_000_000).setExpirationTime(1_700_000_600).sign(key);
+    const otherAudience = await base().setAudience('something-else').sign(key);
+    const fine = await base().setAudience('duskwatch:ingest').sign(key);
+    expect((await post(expired, { v: 4.8 })).status).toBe(401);
+    expect((await post(otherAudience, { v: 4.8 })).status).toBe(401);
+    expect((await post(fine, { t: iso(50), v: 4.8 })).status).toBe(200); // the same key and claims otherwise work
+  });
+
   it('takes the node from the token: a token for node A cannot write node B', async () => {
     const before = await stored(other.nodeId);
     const res = await post(node.token, { v: 4.8, node: other.nodeId });
