@@ -3,21 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '@/lib/db/knex';
 import { appUrl } from '../api/helpers/stack';
 import { createTestNode } from '../api/helpers/fleet';
-import { launchBrowser, newPage, screenshot, signInThroughForm } from './helpers/browser';
+import { launchBrowser, newPage, screenshot, signInThroughForm, watchFailures } from './helpers/browser';
 
 let browser: Browser;
 beforeAll(async () => { browser = await launchBrowser(); });
 afterAll(async () => { await browser?.close(); await closeDb(); });
 
-/** Failed responses by path, so a stray 404 names itself (console errors do not say which URL). */
-function watchFailures(page: import('playwright-core').Page, allowed: RegExp[] = []) {
-  const failures: string[] = [];
-  page.on('response', (r) => {
-    const line = `${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`;
-    if (r.status() >= 400 && !allowed.some((a) => a.test(line))) failures.push(line);
-  });
-  return failures;
-}
 
 const postReading = (token: string) =>
   fetch(`${appUrl()}/api/v1/readings`, { method: 'POST', headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json' }, body: JSON.stringify({ v: 4.5 }) });

@@ -2,21 +2,12 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '@/lib/db/knex';
 import { createTestNode } from '../api/helpers/fleet';
-import { launchBrowser, newPage, screenshot, signInThroughForm } from './helpers/browser';
+import { launchBrowser, newPage, screenshot, signInThroughForm, watchFailures } from './helpers/browser';
 
 let browser: Browser;
 beforeAll(async () => { browser = await launchBrowser(); });
 afterAll(async () => { await browser?.close(); await closeDb(); });
 
-/** Failed responses by path, so a stray 404 names itself (console errors do not say which URL). */
-function watchFailures(page: import('playwright-core').Page, allowed: RegExp[] = []) {
-  const failures: string[] = [];
-  page.on('response', (r) => {
-    const line = `${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`;
-    if (r.status() >= 400 && !allowed.some((a) => a.test(line))) failures.push(line);
-  });
-  return failures;
-}
 
 describe('CSV import and field visits in Chromium', () => {
   it('uploads a CSV log and shows its report, then keeps it in the history', async () => {

@@ -1,21 +1,12 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
-import { launchBrowser, newPage, screenshot, signInThroughForm } from './helpers/browser';
+import { launchBrowser, newPage, screenshot, signInThroughForm, watchFailures } from './helpers/browser';
 
 let browser: Browser;
 beforeAll(async () => { browser = await launchBrowser(); });
 afterAll(async () => { await browser?.close(); await closeDb(); });
 
-/** Failed responses by path, so a stray 404 names itself (console errors do not say which URL). */
-function watchFailures(page: import('playwright-core').Page, allowed: RegExp[] = []) {
-  const failures: string[] = [];
-  page.on('response', (r) => {
-    const line = `${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`;
-    if (r.status() >= 400 && !allowed.some((a) => a.test(line))) failures.push(line);
-  });
-  return failures;
-}
 
 async function demoNodeId(): Promise<number> {
   const row = await db()('nodes as n').join('organizations as o', 'o.id', 'n.org_id').where('o.slug', 'larkspur-hollow').whereNull('n.deleted_at').orderBy('n.id').first('n.id');

@@ -34,3 +34,13 @@ export async function signInThroughForm(page: Page, email: string, password = 'd
   await page.getByTestId('sign-in-submit').click();
   await page.waitForURL('**/fleet');
 }
+
+/** Failed responses by path, so a stray 404 names itself (console errors do not say which URL). */
+export function watchFailures(page: Page, allowed: RegExp[] = []) {
+  const failures: string[] = [];
+  page.on('response', (r) => {
+    const line = `${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`;
+    if (r.status() >= 400 && !allowed.some((a) => a.test(line))) failures.push(line);
+  });
+  return failures;
+}
