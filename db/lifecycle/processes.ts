@@ -11,7 +11,9 @@ export class ProcessGroup {
 
   start(name: string, command: string, args: string[], env: Record<string, string>, opts: { echo?: boolean } = {}): ChildProcess {
     const log = createWriteStream(path.join(this.logDir, `${name}.log`), { flags: 'a' });
-    const child = spawn(command, args, { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    // Each child leads its own process group, so stopping it also stops what it started (tsx runs
+    // the script in a child process of its own).
+    const child = spawn(command, args, { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
     for (const stream of [child.stdout, child.stderr]) {
       stream?.on('data', (chunk: Buffer) => {
         log.write(chunk);
@@ -32,8 +34,8 @@ export class ProcessGroup {
         new Promise<void>((resolve) => {
           if (child.exitCode !== null) return resolve();
           child.once('exit', () => resolve());
-          child.kill('SIGTERM');
-          setTimeout(() => child.kill('SIGKILL'), 8000).unref();
+          signalGroup(child, 'SIGTERM');
+          setTimeout(() => signalGroup(child, 'SIGKILL'), 8000).unref();
         }),
     );
     await Promise.all(waits);
@@ -54,4 +56,12 @@ export async function waitForHttp(url: string, timeoutMs = 120_000): Promise<voi
     await new Promise((r) => setTimeout(r, 300));
   }
   throw new Error(`${url} did not answer in time (${lastError})`);
+}
+
+function signalGroup(child: ChildProcess, signal: NodeJS.Signals) {
+  try {
+    if (child.pid) process.kill(-child.pid, signal);
+  } catch {
+    child.kill(signal);
+  }
 }
