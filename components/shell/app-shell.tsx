@@ -5,6 +5,7 @@ import { can } from '@/lib/auth/roles';
 import { NavGlyph } from './nav-glyph';
 import { NAV_ITEMS } from './nav-items';
 import { SignOutButton } from './sign-out-button';
+import { ThemeToggle } from './theme-toggle';
 
 /** Desktop: a slim side rail. Phone (390 px): bottom tabs. */
 export function AppShell({ member, children }: { member: Member; children: ReactNode }) {
@@ -32,10 +33,13 @@ export function AppShell({ member, children }: { member: Member; children: React
           <p className="text-xs uppercase tracking-[0.18em] text-ink-faint">Organization</p>
           <p className="font-bold" data-testid="org-name">{member.orgName}</p>
         </div>
+        <div className="flex items-center gap-3">
+        <ThemeToggle />
         <Link href="/account" className="text-right text-sm hover:underline" aria-label={`Account of ${member.email}`}>
           <p className="text-ink-muted">{member.email}</p>
           <p className="text-xs text-ink-faint" data-testid="member-role">{member.role}</p>
         </Link>
+        </div>
       </header>
 
       <div className="px-4 pb-24 pt-6 md:px-8 md:pb-10">{children}</div>

@@ -44,6 +44,18 @@ describe('signing in through the real form in Chromium', () => {
     await screenshot(page, 'sign-in-error');
   });
 
+  it('switches to the light theme and remembers it on this device', async () => {
+    const { page, consoleErrors } = await newPage(browser);
+    await signInThroughForm(page, 'viewer@larkspur.example');
+    expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe('dark');
+    await page.getByTestId('theme-toggle').click();
+    expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe('light');
+    await page.reload();
+    await page.waitForFunction(() => document.documentElement.dataset.theme === 'light');
+    await screenshot(page, 'fleet-light');
+    expect(consoleErrors).toEqual([]);
+  });
+
   it('signs out', async () => {
     const { page } = await newPage(browser);
     await signInThroughForm(page, 'viewer@larkspur.example');
