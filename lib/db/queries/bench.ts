@@ -3,21 +3,11 @@ import { batchFlags, type Characterization } from '../../energy';
 import type { BenchBatchWire, BenchRunFields, BenchRunWire } from '../../schemas/bench-runs';
 
 /** Bench runs: one characterized cell each, grouped by batch label. */
-interface BenchRunRow {
-  id: number;
-  batch_label: string;
-  cell_label: string;
-  nominal_farads: number;
-  nominal_esr_ohms: number;
-  rated_volts: number;
-  current_amps: number;
-  capacitance_farads: number;
-  esr_ohms: number;
-  t1_seconds: number;
-  t2_seconds: number;
+// The stored columns are the wire's measured fields; the ratios and flags are derived.
+type BenchRunRow = Pick<BenchRunWire, 'id' | 'batch_label' | 'cell_label' | 'nominal_farads' | 'nominal_esr_ohms' | 'rated_volts' | 'current_amps' | 'capacitance_farads' | 'esr_ohms' | 't1_seconds' | 't2_seconds'> & {
   created_at: Date;
   uploader: string | null;
-}
+};
 
 function runToWire(r: BenchRunRow): BenchRunWire {
   // Each cell against its own nominal rating (lib/energy batchFlags: < 80 % C, > 2× ESR).
