@@ -1,12 +1,7 @@
-export interface ImportSummary {
-  id: number;
-  lines: number;
-  accepted: number;
-  duplicates: number;
-  rejected: number;
-  rejections: { line: number; reason: string }[];
-  status: 'running' | 'done' | 'failed';
-}
+import type { ImportReport as StoredImportReport } from '@/lib/ingest/import-csv';
+
+/** The server's import report; a stored import may also still be running. */
+export type ImportSummary = Omit<StoredImportReport, 'status'> & { status: StoredImportReport['status'] | 'running' };
 
 /** Counts first, then the rejected lines with their reasons (the first 200 are kept). */
 export function ImportReport({ report, testId = 'import-report' }: { report: ImportSummary; testId?: string }) {
