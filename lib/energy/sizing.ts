@@ -105,7 +105,8 @@ export function planBank(input: PlanInput): BankPlan {
   };
 }
 
-function bankSpec(input: PlanInput, cellsParallel: number): BankSpec {
+/** The planned bank: the input's cell type, `cellsSeries` in each string, `cellsParallel` strings. */
+export function bankSpec(input: Pick<PlanInput, 'cell' | 'cellsSeries'>, cellsParallel: number): BankSpec {
   const { cell } = input;
   return {
     cellsSeries: input.cellsSeries,

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { checkNodeSpecs, modelBank, type BankPlan, type BankSpec, type PlanInput } from '../energy';
+import { bankSpec, checkNodeSpecs, modelBank, type BankPlan, type PlanInput } from '../energy';
 import type { InvalidParam } from '../errors';
 import {
   converterFromWire,
@@ -108,18 +108,6 @@ export function planInputFromWire(body: PlannerBody): PlanInput {
   };
 }
 
-function bankOf(input: PlanInput, cellsParallel: number): BankSpec {
-  const { cell } = input;
-  return {
-    cellsSeries: input.cellsSeries,
-    cellsParallel,
-    cellFarads: cell.farads,
-    cellRatedVolts: cell.ratedVolts,
-    cellEsrOhms: cell.esrOhms,
-    cellLeakageAmps: cell.leakageAmps,
-  };
-}
-
 // lib/energy checks a bank; the planner's bank is one cell type in strings of cells_series.
 const BANK_POINTERS: Record<string, string> = {
   cellsSeries: '/cells_series',
@@ -131,7 +119,7 @@ const BANK_POINTERS: Record<string, string> = {
 const snake = (name: string) => name.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
 
 export function planProblems(input: PlanInput): InvalidParam[] {
-  const found = checkNodeSpecs({ bank: bankOf(input, 1), converter: input.converter, load: input.load, site: input.site });
+  const found = checkNodeSpecs({ bank: bankSpec(input, 1), converter: input.converter, load: input.load, site: input.site });
   return found.map((p) => ({
     pointer: p.path[0] === 'bank' ? (BANK_POINTERS[p.path[1]] ?? '/cell') : '/' + p.path.map(snake).join('/'),
     detail: p.message,
@@ -144,7 +132,7 @@ export function curveStepSeconds(windowSeconds: number): number {
 }
 
 export function planToWire(plan: BankPlan, input: PlanInput) {
-  const spec = bankOf(input, plan.evaluatedCellsParallel);
+  const spec = bankSpec(input, plan.evaluatedCellsParallel);
   const model = modelBank({ bank: spec });
   return {
     cells_parallel: plan.cellsParallel,
