@@ -24,6 +24,18 @@ const schema = z.object({
   MAIL_DIR: z.string().default('.data/mail'),
   UPLOAD_DIR: z.string().default('.data/uploads'),
   JOB_INTERVAL_SECONDS: z.coerce.number().positive().default(60),
+  /**
+   * Raw readings older than this many days are dropped a whole month partition at a time (the
+   * rollups stay, so charts of old ranges still draw). `off` keeps them forever. At least 35 days,
+   * so last month's raw readings are always there; 0 is refused as ambiguous (say `off`).
+   */
+  READINGS_RETENTION_DAYS: z
+    .union([z.literal('off'), z.coerce.number().int().min(35, 'at least 35 days, or off')])
+    .default(730)
+    .transform((v) => (v === 'off' ? null : v)),
+  /** The maintenance user (ALTER, DROP on readings only): set for the job runner alone, never for the app. */
+  DB_MAINT_USER: z.string().default('duskwatch_maint'),
+  DB_MAINT_PASSWORD: z.string().optional(),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -2,7 +2,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { stopMariadb } from './mariadb';
 import { ProcessGroup, waitForHttp } from './processes';
-import { profileEnv, resolveProfile } from './profile';
+import { maintenanceEnv, profileEnv, resolveProfile } from './profile';
 import { binPath, buildAppIfStale, prepareDatabase } from './stack';
 import { seedDemoIfEmpty } from '../seeds/demo-seed';
 
@@ -20,7 +20,7 @@ async function main() {
   const tsx = binPath(profile.root, 'tsx');
   group.start('mail', tsx, ['lib/mail/run-catcher.ts'], env, { echo: true });
   group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
-  if (existsSync(path.join(profile.root, 'lib/jobs/run-jobs.ts'))) group.start('jobs', tsx, ['lib/jobs/run-jobs.ts'], env, { echo: true });
+  if (existsSync(path.join(profile.root, 'lib/jobs/run-jobs.ts'))) group.start('jobs', tsx, ['lib/jobs/run-jobs.ts'], { ...env, ...maintenanceEnv(profile) }, { echo: true });
   await waitForHttp(`${env.APP_URL}/`);
   if (existsSync(path.join(profile.root, 'simulator/cli.ts'))) {
     group.start('sim', tsx, ['simulator/cli.ts', '--demo', '--url', env.APP_URL], env, { echo: true });

@@ -100,9 +100,13 @@ export async function startMariadb(profile: Profile): Promise<ChildProcess | nul
   return child;
 }
 
-/** Creates the database and an application user with data privileges only (no DDL). */
+/**
+ * Creates the database, an application user with data privileges only (no DDL), and a
+ * maintenance user for the retention pass. MariaDB 10.11 asks ALTER and DROP on the table for
+ * ALTER TABLE ... DROP PARTITION, ALTER alone for REORGANIZE PARTITION (checked here); no SELECT.
+ */
 export async function provisionDatabase(profile: Profile, opts: { fresh?: boolean } = {}): Promise<void> {
-  const { dbPassword } = loadSecrets(profile);
+  const { dbPassword, maintPassword } = loadSecrets(profile);
   const c = await rootConnection(profile);
   try {
     if (opts.fresh) await c.query(`DROP DATABASE IF EXISTS \`${profile.dbName}\``);
@@ -112,6 +116,23 @@ export async function provisionDatabase(profile: Profile, opts: { fresh?: boolea
       await c.query(`CREATE USER IF NOT EXISTS 'duskwatch_app'@'${host}' IDENTIFIED BY ?`, [dbPassword]);
       await c.query(`ALTER USER 'duskwatch_app'@'${host}' IDENTIFIED BY ?`, [dbPassword]);
       await c.query(`GRANT SELECT, INSERT, UPDATE, DELETE ON \`${profile.dbName}\`.* TO 'duskwatch_app'@'${host}'`);
+      await c.query(`CREATE USER IF NOT EXISTS 'duskwatch_maint'@'${host}' IDENTIFIED BY ?`, [maintPassword]);
+      await c.query(`ALTER USER 'duskwatch_maint'@'${host}' IDENTIFIED BY ?`, [maintPassword]);
+    }
+  } finally {
+    await c.end();
+  }
+}
+
+/**
+ * After the migrations (a table grant needs the table): the maintenance user may alter and drop
+ * partitions of readings and touch nothing else. Idempotent.
+ */
+export async function grantMaintenanceOnReadings(profile: Profile): Promise<void> {
+  const c = await rootConnection(profile);
+  try {
+    for (const host of ['127.0.0.1', 'localhost']) {
+      await c.query(`GRANT ALTER, DROP ON \`${profile.dbName}\`.\`readings\` TO 'duskwatch_maint'@'${host}'`);
     }
   } finally {
     await c.end();

@@ -51,6 +51,8 @@ export function resolveProfile(name: ProfileName, root = process.cwd(), slot = 0
 
 interface Secrets {
   dbPassword: string;
+  /** The maintenance user's (partition upkeep of readings); added to older secrets files on first use. */
+  maintPassword: string;
   nextAuthSecret: string;
   deviceTokenSecret: string;
 }
@@ -58,15 +60,23 @@ interface Secrets {
 /** Generated once per profile, kept under .data/ (git-ignored), never committed. */
 export function loadSecrets(profile: Profile): Secrets {
   const file = path.join(profile.dataDir, 'secrets.json');
-  if (existsSync(file)) return JSON.parse(readFileSync(file, 'utf8')) as Secrets;
-  mkdirSync(profile.dataDir, { recursive: true });
+  const stored = existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as Partial<Secrets>) : {};
   const secrets: Secrets = {
-    dbPassword: randomBytes(18).toString('base64url'),
-    nextAuthSecret: randomBytes(32).toString('base64url'),
-    deviceTokenSecret: randomBytes(32).toString('base64url'),
+    dbPassword: stored.dbPassword ?? randomBytes(18).toString('base64url'),
+    maintPassword: stored.maintPassword ?? randomBytes(18).toString('base64url'),
+    nextAuthSecret: stored.nextAuthSecret ?? randomBytes(32).toString('base64url'),
+    deviceTokenSecret: stored.deviceTokenSecret ?? randomBytes(32).toString('base64url'),
   };
-  writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  if (Object.keys(stored).length < Object.keys(secrets).length) {
+    mkdirSync(profile.dataDir, { recursive: true });
+    writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  }
   return secrets;
+}
+
+/** The maintenance user's sign-in: given to the job runner only, so the app never holds DDL rights. */
+export function maintenanceEnv(profile: Profile): Record<string, string> {
+  return { DB_MAINT_USER: 'duskwatch_maint', DB_MAINT_PASSWORD: loadSecrets(profile).maintPassword };
 }
 
 /** The environment every process of this profile runs with (parsed again by lib/env.ts). */

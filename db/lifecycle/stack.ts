@@ -3,7 +3,7 @@ import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from '
 import path from 'node:path';
 import knexFactory from 'knex';
 import { migratorConfig } from './migration-source';
-import { provisionDatabase, rootConnectionConfig, startMariadb } from './mariadb';
+import { grantMaintenanceOnReadings, provisionDatabase, rootConnectionConfig, startMariadb } from './mariadb';
 import type { Profile } from './profile';
 
 /** The steps both launchers share: database up and migrated, app built. */
@@ -18,6 +18,7 @@ export async function prepareDatabase(profile: Profile, opts: { fresh?: boolean 
   } finally {
     await knex.destroy();
   }
+  await grantMaintenanceOnReadings(profile);
 }
 
 export function rootKnex(profile: Profile) {

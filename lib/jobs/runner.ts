@@ -3,21 +3,25 @@ import type { SmtpSettings } from '../mail/sender';
 import { runDigestPass } from './digest-pass';
 import { runMailPass } from './mail-pass';
 import { runMarginPass } from './margin-pass';
+import { describeRetention, runRetentionPass } from './retention-pass';
 
 /**
  * The job loop: a margin pass (then the digest) every `intervalSeconds`, a mail pass more often
  * so invitations and resets do not wait a minute. stop() lets the pass in flight finish (each
  * node and each e-mail commits on its own) and then returns; nothing half-written is left.
+ * With `retention` (a pool as the maintenance user) the partition upkeep runs about hourly.
  */
 export interface JobRunnerOptions {
   knex: Knex;
   intervalSeconds: number;
   appUrl: string;
   smtp: SmtpSettings;
+  retention?: { knex: Knex; days: number | null };
   log?: (line: string) => void;
 }
 
 const MAIL_EVERY_SECONDS = 10;
+const RETENTION_EVERY_SECONDS = 3600;
 
 export function startJobRunner(opts: JobRunnerOptions): { stop: () => Promise<void>; done: Promise<void> } {
   const log = opts.log ?? ((line: string) => console.log(line));
@@ -30,6 +34,7 @@ export function startJobRunner(opts: JobRunnerOptions): { stop: () => Promise<vo
 
   const done = (async () => {
     let nextMarginAt = 0;
+    let nextRetentionAt = 0;
     while (!stopping) {
       const now = new Date();
       if (now.getTime() >= nextMarginAt) {
@@ -42,6 +47,11 @@ export function startJobRunner(opts: JobRunnerOptions): { stop: () => Promise<vo
           return `${r.nodes.length} nodes, opened [${opened.join(' ')}], resolved [${resolved.join(' ')}], ${r.failures.length} failed`;
         });
         await guarded(log, 'digest', async () => `${await runDigestPass({ knex: opts.knex, now, appUrl: opts.appUrl })} written`, true);
+      }
+      const retention = opts.retention;
+      if (retention && now.getTime() >= nextRetentionAt) {
+        nextRetentionAt = now.getTime() + RETENTION_EVERY_SECONDS * 1000;
+        await guarded(log, 'retention', async () => describeRetention(await runRetentionPass({ knex: retention.knex, retentionDays: retention.days, now }), retention.days));
       }
       await guarded(log, 'mail', async () => {
         const r = await runMailPass({ knex: opts.knex, smtp: opts.smtp });

@@ -54,18 +54,25 @@ export function readingRowsQuery({ knex = db(), nodeId, from, to }: { knex?: Db;
   return knex('readings').where('node_id', nodeId).andWhere('t', '>=', from).andWhere('t', '<', to).orderBy('t');
 }
 
-async function readFineRows({ nodeId, plan }: { nodeId: number; plan: BucketPlan }): Promise<FineRow[]> {
+/**
+ * The rows of a plan. A raw range with no raw readings may be one whose month partition the
+ * retention pass dropped: it is then drawn from the 5-minute rollups, which are kept.
+ */
+async function readFineRows({ nodeId, plan }: { nodeId: number; plan: BucketPlan }): Promise<{ rows: FineRow[]; plan: BucketPlan }> {
   const from = toDate(plan.fromSeconds);
   const to = toDate(plan.toSeconds);
   if (plan.readSeconds === 0) {
     const rows = await readingRowsQuery({ nodeId, from, to }).select('t', 'v', 'vp');
-    return rows.map((r) => readingToFineRow({ t: toSeconds(r.t), v: Number(r.v), vp: r.vp === null ? null : Number(r.vp) }));
+    if (rows.length) return { plan, rows: rows.map((r) => readingToFineRow({ t: toSeconds(r.t), v: Number(r.v), vp: r.vp === null ? null : Number(r.vp) })) };
+    const w = 300;
+    const coarse: BucketPlan = { bucketSeconds: w, source: 'rollup-300', readSeconds: w, fromSeconds: Math.floor(plan.fromSeconds / w) * w, toSeconds: Math.ceil(plan.toSeconds / w) * w };
+    return readFineRows({ nodeId, plan: coarse });
   }
   const rows = await rollupRowsQuery({ nodeId, readSeconds: plan.readSeconds, from, to });
-  return rows.map((r) => ({
+  return { plan, rows: rows.map((r) => ({
     t: toSeconds(r.bucket_start), n: Number(r.n), vMin: Number(r.v_min), vMax: Number(r.v_max), vSum: Number(r.v_sum),
     vLast: Number(r.v_last), tLast: toSeconds(r.t_last), vpMax: r.vp_max === null ? null : Number(r.vp_max),
-  }));
+  })) };
 }
 
 /** The latest reading at or before `now` (a reading stamped ahead of the clock is not "latest" yet). */
@@ -83,9 +90,10 @@ export async function readSamples({ loaded, from, to }: { loaded: LoadedNode; fr
 export async function loadNodeSeries(opts: { orgId: number; nodeId: number; fromSeconds: number; toSeconds: number; buckets: number; now?: Date }): Promise<SeriesReply> {
   const now = opts.now ?? new Date();
   const loaded = await loadNodeInOrg({ orgId: opts.orgId, nodeId: opts.nodeId });
-  const plan = planBuckets({ fromSeconds: opts.fromSeconds, toSeconds: opts.toSeconds, maxBuckets: opts.buckets });
+  const read = await readFineRows({ nodeId: opts.nodeId, plan: planBuckets({ fromSeconds: opts.fromSeconds, toSeconds: opts.toSeconds, maxBuckets: opts.buckets }) });
+  const plan = read.plan;
   const bank = bankFigures({ spec: loaded.spec });
-  const buckets = mergeIntoBuckets({ rows: await readFineRows({ nodeId: opts.nodeId, plan }), bucketSeconds: plan.bucketSeconds });
+  const buckets = mergeIntoBuckets({ rows: read.rows, bucketSeconds: plan.bucketSeconds });
   const calibration = { gain: loaded.node.cal_gain, offsetVolts: loaded.node.cal_offset_volts };
   const columns = buildSeriesColumns({ buckets, calibration, bankFarads: bank.farads, burstFloorVolts: bank.burst_floor_volts });
   const latest = await latestReadingBefore({ nodeId: opts.nodeId, now });
