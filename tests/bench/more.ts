@@ -76,6 +76,7 @@ export async function extraBenches(ctx: { env: Record<string, string>; profile: 
   const [[{ n: partitionCount }]] = await root.raw("SELECT COUNT(*) AS n FROM information_schema.PARTITIONS WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = 'readings'");
   rows.push({ what: 'Partition pruning: partitions read for a one-day range', figure: String(parts), baseline: `${partitionCount} monthly partitions`, ratio: '—', target: '≤ 2', ok: parts <= 2, tool: 'EXPLAIN PARTITIONS' });
 
+  rows.push(...(await (await import('./retention')).retentionBenches({ profile, root })));
   rows.push(await chartDraw());
   return rows;
 }
