@@ -6,7 +6,8 @@ import { listReadingPartitions, monthStart, type MonthPartition } from '@/lib/db
 import { rebuildRollups } from '@/lib/db/queries/rollups';
 import { loadNodeSeries } from '@/lib/db/queries/series';
 import { MONTHS_AHEAD, openMaintenanceKnex, RETENTION_PASS_LOCK, runRetentionPass } from '@/lib/jobs/retention-pass';
-import { createTestOrg, type TestOrg } from './alerts-fixtures';
+import { startJobRunner } from '@/lib/jobs/runner';
+import { createTestOrg, SMTP_FROM, startCatcher, type TestOrg } from './alerts-fixtures';
 
 // The retention pass against the real test database, as the maintenance user, with a `now`
 // chosen from the table's own partitions: the oldest month falls out of a retention whose
@@ -108,6 +109,23 @@ describe('retention of raw readings', () => {
       await root.raw('SELECT RELEASE_LOCK(?)', [RETENTION_PASS_LOCK]).connection(holder);
       await root.client.releaseConnection(holder);
     }
+  });
+
+  it('runs as a step of the job runner and logs what it did', async () => {
+    const mail = await startCatcher('retention');
+    const lines: string[] = [];
+    const runner = startJobRunner({
+      knex: db(), intervalSeconds: 3600, appUrl: 'http://127.0.0.1:3999', smtp: { host: '127.0.0.1', port: mail.port, from: SMTP_FROM },
+      retention: { knex: maint, days: 730 }, log: (line) => lines.push(line),
+    });
+    try {
+      const until = Date.now() + 20_000;
+      while (Date.now() < until && !lines.some((l) => l.startsWith('[retention]'))) await new Promise((r) => setTimeout(r, 100));
+    } finally {
+      await runner.stop();
+      await mail.catcher.close();
+    }
+    expect(lines.find((l) => l.startsWith('[retention]')), lines.join('\n')).toMatch(/^\[retention\] raw kept 730 d \(cutoff \d{4}-\d{2}-\d{2}\), dropped \[.*\], added \[.*\]/);
   });
 
   it('leaves the app user without DDL, and the maintenance user without data or other tables', async () => {
