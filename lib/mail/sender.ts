@@ -1,15 +1,19 @@
 import type { Knex } from 'knex';
 import nodemailer from 'nodemailer';
 import { oneLine } from './outbox';
+import { classifySmtpError, GIVE_UP_MS, holdUntil, nextAttemptAt, retryDelaySeconds } from './retry';
+
+export { classifySmtpError, GIVE_UP_MS, holdUntil, retryDelaySeconds, type SmtpVerdict } from './retry';
 
 /**
  * The outbox sender: claims due rows (pending, next_attempt_at ≤ now) with FOR UPDATE SKIP
  * LOCKED and a short lease, so two senders never take the same row, then delivers each over
  * SMTP with the row's own Message-ID (stable across retries). A temporary failure (4xx,
- * refused, timed out) is retried with exponential backoff and jitter; a permanent one (5xx)
- * is dead-lettered with its error kept in last_error. Alert and digest mail beyond the
- * organization's hourly cap is held (still pending, last_error says "held: …") until the
- * hour allows it; account mail (invitations, password resets) is never held.
+ * refused, timed out) is retried with exponential backoff and jitter (lib/mail/retry.ts); a
+ * permanent one (5xx) is dead-lettered with its error kept in last_error. Alert and digest
+ * mail beyond the organization's hourly cap (what was sent counts, not what was tried) is
+ * held (still pending, last_error says "held: …") until the hour allows it; account mail
+ * (invitations, password resets) is never held.
  */
 export interface SmtpSettings {
   host: string;
@@ -29,8 +33,6 @@ export interface MailPassReport {
 const LEASE_MS = 5 * 60_000;
 const CAPPED_PURPOSES = new Set(['alert', 'digest']);
 const HOUR_MS = 3_600_000;
-/** A temporary failure that lasts this long (from the row's creation) becomes a dead letter. */
-export const GIVE_UP_MS = 48 * HOUR_MS;
 
 interface OutboxRow {
   id: number;
@@ -62,8 +64,9 @@ export async function deliverDueMail(opts: { knex: Knex; now?: Date; smtp: SmtpS
   try {
     for (let i = 0; i < rows.length; i++) {
       const row = rows[i];
-      if (row.org_id !== null && CAPPED_PURPOSES.has(row.purpose) && !(await cap.allow(row.org_id, row.mail_cap_per_hour ?? 60))) {
-        await holdRow(opts.knex, row, await cap.reopensAt(row.org_id), row.mail_cap_per_hour ?? 60);
+      const cappedOrg = row.org_id !== null && CAPPED_PURPOSES.has(row.purpose) ? row.org_id : null;
+      if (cappedOrg !== null && !(await cap.hasRoom(cappedOrg, row.mail_cap_per_hour ?? 60))) {
+        await holdRow(opts.knex, row, await cap.reopensAt(cappedOrg), row.mail_cap_per_hour ?? 60);
         report.held++;
         continue;
       }
@@ -72,6 +75,8 @@ export async function deliverDueMail(opts: { knex: Knex; now?: Date; smtp: SmtpS
           from: opts.smtp.from, to: oneLine(row.to_address), subject: oneLine(row.subject), text: row.text_body, html: row.html_body,
           messageId: row.message_id, headers: { 'X-Duskwatch-Purpose': oneLine(row.purpose) }, ...(await threadOf(opts.knex, row)),
         });
+        // Only a message the relay took counts against the cap: a failed try sent nothing.
+        if (cappedOrg !== null) cap.record(cappedOrg);
         await opts.knex('email_outbox').where({ id: row.id }).update({ status: 'sent', sent_at: now, attempts: row.attempts + 1, last_error: null });
         report.sent++;
       } catch (error) {
@@ -80,7 +85,9 @@ export async function deliverDueMail(opts: { knex: Knex; now?: Date; smtp: SmtpS
         await opts.knex('email_outbox').where({ id: row.id }).update({
           attempts: row.attempts + 1,
           last_error: (giveUp && verdict.kind === 'temporary' ? 'gave up after 48 h: ' : '') + verdict.summary,
-          ...(giveUp ? { status: 'dead' } : { next_attempt_at: new Date(now.getTime() + retryDelaySeconds({ attempts: row.attempts + 1, random }) * 1000) }),
+          ...(giveUp ? { status: 'dead' } : { next_attempt_at: nextAttemptAt({
+            now, createdAt: new Date(row.created_at), delaySeconds: retryDelaySeconds({ attempts: row.attempts + 1, random, relayDown: verdict.connection }),
+          }) }),
         });
         if (giveUp) report.dead++;
         else report.retrying++;
@@ -141,59 +148,16 @@ class HourlyCap {
     return this.sent.get(orgId)!;
   }
 
-  async allow(orgId: number, capPerHour: number): Promise<boolean> {
-    const times = await this.load(orgId);
-    if (times.length >= capPerHour) return false;
-    times.push(this.now);
-    return true;
+  async hasRoom(orgId: number, capPerHour: number): Promise<boolean> {
+    return (await this.load(orgId)).length < capPerHour;
+  }
+
+  /** After hasRoom (which loaded the organization's sends), a message of this pass went out. */
+  record(orgId: number) {
+    this.sent.get(orgId)?.push(this.now);
   }
 
   async reopensAt(orgId: number): Promise<Date> {
     return holdUntil({ sentTimes: await this.load(orgId), now: this.now });
   }
-}
-
-// ---- retry policy ----
-
-/**
- * Which SMTP failures are worth retrying, and when. A 4xx reply, a refused or dropped
- * connection and a timeout are temporary; a 5xx reply (or a message the transport itself
- * refuses) is permanent. Unknown errors count as temporary: retrying loses nothing.
- */
-export interface SmtpVerdict {
-  kind: 'temporary' | 'permanent';
-  /** The relay could not be reached at all (not a reply about this message). */
-  connection: boolean;
-  summary: string;
-}
-
-const CONNECTION_CODES = new Set(['ECONNECTION', 'ESOCKET', 'ETIMEDOUT', 'ECONNREFUSED', 'ECONNRESET', 'EDNS', 'EGREETING', 'ETLS', 'EPROTOCOL']);
-
-export function classifySmtpError(error: unknown): SmtpVerdict {
-  const e = (error ?? {}) as { code?: string; responseCode?: number; message?: string };
-  const summary = `${e.responseCode ? `${e.responseCode} ` : ''}${e.code ? `${e.code}: ` : ''}${e.message ?? String(error)}`.slice(0, 1000);
-  if (typeof e.responseCode === 'number' && e.responseCode >= 500) return { kind: 'permanent', connection: false, summary };
-  if (typeof e.responseCode === 'number' && e.responseCode >= 400) return { kind: 'temporary', connection: false, summary };
-  if (e.code && CONNECTION_CODES.has(e.code)) return { kind: 'temporary', connection: true, summary };
-  if (e.code === 'EENVELOPE' || e.code === 'EMESSAGE') return { kind: 'permanent', connection: false, summary };
-  return { kind: 'temporary', connection: false, summary };
-}
-
-const BASE_SECONDS = 30;
-const MAX_SECONDS = 3600;
-
-/**
- * Exponential backoff with "equal jitter": the n-th retry waits between half and all of
- * min(1 h, 30 s·2^(n−1)), so senders that failed together do not retry in lockstep.
- */
-export function retryDelaySeconds({ attempts, random = Math.random }: { attempts: number; random?: () => number }): number {
-  const ceiling = Math.min(MAX_SECONDS, BASE_SECONDS * 2 ** Math.max(0, attempts - 1));
-  return ceiling / 2 + (ceiling / 2) * random();
-}
-
-/** A held message may go once the oldest send of the last hour has aged out of it. */
-export function holdUntil({ sentTimes, now }: { sentTimes: Date[]; now: Date }): Date {
-  const oldest = sentTimes.reduce((min, t) => Math.min(min, t.getTime()), Infinity);
-  const reopens = Number.isFinite(oldest) ? oldest + 3_600_000 : now.getTime();
-  return new Date(Math.max(reopens, now.getTime() + 60_000));
 }
