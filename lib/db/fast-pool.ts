@@ -18,6 +18,7 @@ export function fastPool(): mysql.Pool {
       password: env.DB_PASSWORD,
       database: env.DB_NAME,
       timezone: 'Z',
+      supportBigNumbers: true,
       multipleStatements: true,
       connectionLimit: env.DB_POOL_MAX,
       connectTimeout: 5000,

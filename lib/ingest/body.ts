@@ -1,6 +1,7 @@
 import { problems, type InvalidParam } from '../errors';
 import { MAX_BODY_BYTES, MAX_READINGS_PER_POST, batchSchema } from '../schemas/reading';
 import { csvLineToObject, parseCsvHeader } from './csv';
+import { fastReading } from './fast-reading';
 import { normalizeReading, type NormalizedReading } from './normalize';
 
 /** Reads at most `maxBytes` of the body, refusing more without buffering it (413). */
@@ -43,6 +44,8 @@ export async function parseIngestBody(request: Request, receivedAt: Date): Promi
   const bad: InvalidParam[] = [];
   items.forEach(({ raw, pointer, error }) => {
     if (error) return bad.push({ pointer, detail: error });
+    const quick = fastReading(raw, receivedAt);
+    if (quick) return readings.push(quick);
     const { reading, problems: p } = normalizeReading(raw, pointer, receivedAt);
     if (reading) readings.push(reading);
     bad.push(...p);

@@ -1,6 +1,7 @@
 import mysql from 'mysql2/promise';
 import { fastPool } from '../db/fast-pool';
 import { rollupDeltaStatement } from '../db/queries/rollups';
+import { sqlUtc } from '../db/sql-time';
 import type { DerivedStatus } from '../status/derive-status';
 import type { NormalizedReading } from './normalize';
 
@@ -17,7 +18,7 @@ const STATUS_COLUMNS = ['state', 'last_reading_at', 'volts', 'panel_volts', 'ene
 export async function storeAllNew(opts: { nodeId: number; orgId: number; readings: NormalizedReading[]; status: DerivedStatus | null }): Promise<boolean> {
   const { nodeId, orgId, readings, status } = opts;
   const parts: string[] = ['START TRANSACTION'];
-  const rows = readings.map((r) => [nodeId, r.t, r.v, r.vp, r.temp, r.rssi, r.seq]);
+  const rows = readings.map((r) => [nodeId, sqlUtc(r.t.getTime()), r.v, r.vp, r.temp, r.rssi, r.seq]);
   parts.push(format('INSERT INTO readings (node_id, t, v, vp, temp_c, rssi_dbm, seq) VALUES ?', [rows]));
   const rollup = rollupDeltaStatement(nodeId, readings);
   if (rollup) parts.push(format(rollup.sql, rollup.bindings));

@@ -9,7 +9,7 @@ export const MAX_BODY_BYTES = 256 * 1024;
 export const MAX_FUTURE_SECONDS = 5 * 60;
 export const MAX_AGE_DAYS = 400;
 
-const RFC3339 = /^\d{4}-\d{2}-\d{2}[Tt ]\d{2}:\d{2}:\d{2}(\.\d{1,9})?([Zz]|[+-]\d{2}:\d{2})$/;
+export const RFC3339 = /^\d{4}-\d{2}-\d{2}[Tt ]\d{2}:\d{2}:\d{2}(\.\d{1,9})?([Zz]|[+-]\d{2}:\d{2})$/;
 
 export const readingTime = z.union([
   z.string().regex(RFC3339, 'Use an RFC 3339 time such as 2026-12-01T21:30:00Z, or Unix seconds.'),

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { sqlUtc } from '../sql-time';
 
 /** Chart rollups: min/max/avg/last per node per 5-minute and 1-hour bucket. */
 export const ROLLUP_BUCKETS_SECONDS = [300, 3600] as const;
@@ -38,27 +39,33 @@ export async function applyRollupDeltas(trx: Knex | Knex.Transaction, nodeId: nu
   if (statement) await trx.raw(statement.sql, statement.bindings);
 }
 
-export function rollupDeltaStatement(nodeId: number, readings: { t: Date; v: number; vp: number | null }[]): { sql: string; bindings: (number | Date | null)[] } | null {
+export function rollupDeltaStatement(nodeId: number, readings: { t: Date; v: number; vp: number | null }[]): { sql: string; bindings: (number | string | null)[] } | null {
   if (!readings.length) return null;
-  const buckets = new Map<string, { bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null }>();
+  type Bucket = { bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null };
+  // One map per bucket size keyed by the bucket's start second (numbers, not strings: this
+  // runs for every reading on the ingest path).
+  const bySize = ROLLUP_BUCKETS_SECONDS.map(() => new Map<number, Bucket>());
   for (const r of readings) {
     const ms = r.t.getTime();
-    for (const bucket of ROLLUP_BUCKETS_SECONDS) {
+    for (let k = 0; k < ROLLUP_BUCKETS_SECONDS.length; k++) {
+      const bucket = ROLLUP_BUCKETS_SECONDS[k];
       const start = Math.floor(ms / 1000 / bucket) * bucket;
-      const key = `${bucket}:${start}`;
-      const b = buckets.get(key) ?? { bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
+      let b = bySize[k].get(start);
+      if (!b) {
+        b = { bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
+        bySize[k].set(start, b);
+      }
       b.n++;
-      b.min = Math.min(b.min, r.v);
-      b.max = Math.max(b.max, r.v);
+      if (r.v < b.min) b.min = r.v;
+      if (r.v > b.max) b.max = r.v;
       b.sum += r.v;
       if (ms > b.tLast) { b.tLast = ms; b.last = r.v; }
       if (r.vp !== null) b.vpMax = b.vpMax === null ? r.vp : Math.max(b.vpMax, r.vp);
-      buckets.set(key, b);
     }
   }
-  const rows = [...buckets.values()];
+  const rows = bySize.flatMap((m) => [...m.values()]);
   const placeholders = rows.map(() => '(?, ?, FROM_UNIXTIME(?), ?, ?, ?, ?, ?, ?, ?)').join(', ');
-  const bindings = rows.flatMap((b) => [nodeId, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, new Date(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
+  const bindings = rows.flatMap((b) => [nodeId, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, sqlUtc(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
   const sql = `INSERT INTO reading_rollups (node_id, bucket_seconds, bucket_start, n, v_min, v_max, v_sum, v_last, t_last, vp_max)
      VALUES ${placeholders}
      ON DUPLICATE KEY UPDATE
