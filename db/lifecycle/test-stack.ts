@@ -19,7 +19,11 @@ export async function withTestStack<T>(profile: Profile, env: Record<string, str
     buildAppIfStale(profile.root, profile.distDir);
     if (opts.browser) ensureChromium();
     group.start('mail', binPath(profile.root, 'tsx'), ['lib/mail/run-catcher.ts'], env);
-    group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
+    const appEnv = { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) };
+    // DUSKWATCH_APP_CPU_PROFILE=<dir>: the app writes a V8 CPU profile there when stopped (tuning).
+    const profileDir = process.env.DUSKWATCH_APP_CPU_PROFILE;
+    if (profileDir) group.start('app', process.execPath, ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, '--import', 'tsx', 'lib/server/serve.ts'], appEnv);
+    else group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], appEnv);
     await waitForHttp(`${env.APP_URL}/`);
     return await work();
   } finally {

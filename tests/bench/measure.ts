@@ -1,8 +1,12 @@
 import { execSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 
-/** Resident memory (MB) of the app server process (the node process running serve.ts). */
-export function appRssMb(): number {
+/**
+ * Resident memory (MB) of the app server process (the node process running serve.ts) of this
+ * run: only the one started with PORT = APP_URL's port, so another stack on the machine (a
+ * test slot) is not counted.
+ */
+export function appRssMb(port = Number(new URL(process.env.APP_URL ?? 'http://127.0.0.1:3000').port)): number {
   let pids: string[] = [];
   try {
     pids = execSync('pgrep -f "lib/server/serve.ts"', { encoding: 'utf8' }).trim().split('\n').filter(Boolean);
@@ -12,6 +16,8 @@ export function appRssMb(): number {
   let max = 0;
   for (const pid of pids) {
     try {
+      const environ = readFileSync(`/proc/${pid}/environ`, 'utf8').split('\0');
+      if (!environ.includes(`PORT=${port}`)) continue;
       const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
       if (m) max = Math.max(max, Number(m[1]) / 1024);
     } catch {

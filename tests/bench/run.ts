@@ -41,7 +41,8 @@ async function main() {
     rows.push({ what: 'App resident memory under ingest load (MB)', figure: Math.max(batch.peakMb, single.peakMb).toFixed(0), baseline: '—', ratio: '—', target: '< 500 MB', ok: Math.max(batch.peakMb, single.peakMb) < 500, tool: '/proc VmRSS' });
     if (single.non2xx) console.log(`[bench] single-reading run: ${single.non2xx} non-2xx answers`);
 
-    rows.push(...(await extraBenches({ env, profile, root, fleet })));
+    // BENCH_ONLY=ingest: the ingest rows only, printed and not written to the README (for tuning).
+    if (process.env.BENCH_ONLY !== 'ingest') rows.push(...(await extraBenches({ env, profile, root, fleet })));
     await root.destroy();
   });
   report(rows);
@@ -61,7 +62,7 @@ function report(rows: Row[]) {
   const readme = readFileSync('README.md', 'utf8');
   const start = '<!-- bench:start -->';
   const end = '<!-- bench:end -->';
-  if (readme.includes(start)) {
+  if (readme.includes(start) && process.env.BENCH_ONLY !== 'ingest') {
     writeFileSync('README.md', readme.slice(0, readme.indexOf(start) + start.length) + `\n${header}\n\n${table}\n` + readme.slice(readme.indexOf(end)));
   }
 }
