@@ -4,37 +4,56 @@ import { csvLineToObject, parseCsvHeader } from './csv';
 import { fastReading } from './fast-reading';
 import { normalizeReading, type NormalizedReading } from './normalize';
 
+/**
+ * What ingest needs of a request: its headers and its body. A web Request (Next's route
+ * handler) is one; the Node server's fast route (lib/server/fast-routes.ts) passes its
+ * IncomingMessage's headers and the message itself as the body, without building a Request.
+ */
+export interface IngestRequest {
+  headers: { get(name: string): string | null };
+  body: ReadableStream<Uint8Array> | AsyncIterable<Uint8Array> | null;
+}
+
 /** Reads at most `maxBytes` of the body, refusing more without buffering it (413). */
-export async function readBodyLimited(request: Request, maxBytes = MAX_BODY_BYTES): Promise<string> {
+export async function readBodyLimited(request: IngestRequest, maxBytes = MAX_BODY_BYTES): Promise<string> {
   const declared = Number(request.headers.get('content-length') ?? NaN);
-  if (declared > maxBytes) throw problems.tooLarge(`The body is over ${maxBytes / 1024} KiB; send smaller batches.`);
+  const tooLarge = () => problems.tooLarge(`The body is over ${maxBytes / 1024} KiB; send smaller batches.`);
+  if (declared > maxBytes) throw tooLarge();
   if (!request.body) return '';
-  const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      await reader.cancel();
-      throw problems.tooLarge(`The body is over ${maxBytes / 1024} KiB; send smaller batches.`);
+  if ('getReader' in request.body) {
+    const reader = request.body.getReader();
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      total += value.byteLength;
+      if (total > maxBytes) {
+        await reader.cancel();
+        throw tooLarge();
+      }
+      chunks.push(value);
     }
-    chunks.push(value);
+  } else {
+    for await (const chunk of request.body) {
+      total += chunk.byteLength;
+      if (total > maxBytes) throw tooLarge(); // leaving the loop stops the stream
+      chunks.push(chunk);
+    }
   }
   try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(Buffer.concat(chunks));
+    return new TextDecoder('utf-8', { fatal: true }).decode(chunks.length === 1 ? chunks[0] : Buffer.concat(chunks));
   } catch {
     throw problems.badRequest('The body is not valid UTF-8.');
   }
 }
 
-function mediaType(request: Request): string {
+function mediaType(request: IngestRequest): string {
   return (request.headers.get('content-type') ?? '').split(';')[0].trim().toLowerCase();
 }
 
 /** The whole post, validated: every reading or a 4xx problem. Nothing is stored here. */
-export async function parseIngestBody(request: Request, receivedAt: Date): Promise<NormalizedReading[]> {
+export async function parseIngestBody(request: IngestRequest, receivedAt: Date): Promise<NormalizedReading[]> {
   const type = mediaType(request);
   if (type !== 'application/json' && type !== 'text/csv') throw problems.unsupportedMedia('Send application/json or text/csv.');
   const text = await readBodyLimited(request);

@@ -1,4 +1,5 @@
 import { verifyDeviceToken } from '../auth/device-token';
+import type { IngestRequest } from './body';
 import { fastPool } from '../db/fast-pool';
 import { db } from '../db/knex';
 import { requireSecret } from '../env';
@@ -46,7 +47,7 @@ type ContextRow = NodeRow & Omit<SiteRow, 'id'> & {
   last_reading_at: Date | null; state: string | null; next_report_s: number | null;
 };
 
-export async function authenticateDevice(request: Request): Promise<DeviceContext> {
+export async function authenticateDevice(request: IngestRequest): Promise<DeviceContext> {
   const header = request.headers.get('authorization') ?? '';
   const match = /^Bearer\s+([A-Za-z0-9_\-.]+)\s*$/.exec(header);
   if (!match) throw unauthorized('Send Authorization: Bearer <device token>.');

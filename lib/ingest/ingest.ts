@@ -4,7 +4,7 @@ import { storeReadings } from '../db/queries/readings';
 import { ProblemError, problems } from '../errors';
 import { deriveNodeStatus } from '../status/derive-status';
 import { calibratedVolts, modelSpecFromRows } from '../status/node-spec';
-import { parseIngestBody } from './body';
+import { parseIngestBody, type IngestRequest } from './body';
 import { authenticateDevice, type DeviceContext } from './device-auth';
 import type { NormalizedReading } from './normalize';
 import { takeToken } from './rate-limit';
@@ -18,7 +18,7 @@ import { storeAllNew } from './store-fast';
  * duplicates) → only after the commit returned, answer 200. Storage down or uncertain → 503
  * with Retry-After; nothing half stored.
  */
-export async function ingest(request: Request): Promise<Response> {
+export async function ingest(request: IngestRequest): Promise<Response> {
   const receivedAt = new Date();
   const device = await storage(() => authenticateDevice(request));
   const limit = takeToken(device.nodeId);

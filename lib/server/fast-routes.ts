@@ -1,5 +1,4 @@
 import type { IncomingMessage, ServerResponse } from 'node:http';
-import { Readable } from 'node:stream';
 import { problemResponse } from '../errors';
 import { ingest } from '../ingest/ingest';
 
@@ -14,20 +13,11 @@ export function isFastRoute(req: IncomingMessage): boolean {
   return req.method === 'POST' && (req.url ?? '').split('?')[0] === '/api/v1/readings';
 }
 
-export async function serveFastRoute(req: IncomingMessage, res: ServerResponse, origin: string): Promise<void> {
+export async function serveFastRoute(req: IncomingMessage, res: ServerResponse): Promise<void> {
   let response: Response;
   try {
-    const headers = new Headers();
-    for (const [name, value] of Object.entries(req.headers)) {
-      if (value !== undefined) headers.set(name, Array.isArray(value) ? value.join(', ') : value);
-    }
-    const request = new Request(new URL(req.url ?? '/', origin), {
-      method: req.method,
-      headers,
-      body: Readable.toWeb(req) as ReadableStream,
-      duplex: 'half',
-    } as RequestInit);
-    response = await ingest(request);
+    // No web Request is built: ingest reads two headers and the body, straight from Node's.
+    response = await ingest({ headers: { get: (name) => headerOf(req, name) }, body: req });
   } catch (error) {
     response = problemResponse(error);
   }
@@ -36,4 +26,10 @@ export async function serveFastRoute(req: IncomingMessage, res: ServerResponse, 
   response.headers.forEach((value, name) => { out[name] = value; });
   res.writeHead(response.status, out);
   res.end(body);
+}
+
+function headerOf(req: IncomingMessage, name: string): string | null {
+  const value = req.headers[name.toLowerCase()];
+  if (value === undefined) return null;
+  return Array.isArray(value) ? value.join(', ') : value;
 }

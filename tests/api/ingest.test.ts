@@ -1,7 +1,8 @@
+import http from 'node:http';
 import { SignJWT } from 'jose';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
-import { api } from './helpers/stack';
+import { api, appUrl } from './helpers/stack';
 import { createTestNode } from './helpers/fleet';
 
 afterAll(closeDb);
@@ -93,6 +94,29 @@ describe('POST /api/v1/readings (DESIGN.md §5)', () => {
     isProblem(await post(node.token, many), 413);
     const big = JSON.stringify({ v: 4.8, pad: 'x'.repeat(300 * 1024) });
     isProblem(await post(node.token, big), 413);
+  });
+
+  it('answers 413 to a chunked body (no Content-Length) once it passes 256 KiB, and stores nothing', async () => {
+    const before = await stored(node.nodeId);
+    const url = new URL(appUrl());
+    const answer = await new Promise<{ status: number; body: string; type: string }>((resolve, reject) => {
+      const req = http.request({ host: url.hostname, port: url.port, path: '/api/v1/readings', method: 'POST',
+        headers: { authorization: `Bearer ${node.token}`, 'content-type': 'application/json', 'transfer-encoding': 'chunked' } }, (res) => {
+        let body = '';
+        res.on('data', (c) => (body += c));
+        res.on('end', () => resolve({ status: res.statusCode ?? 0, body, type: String(res.headers['content-type']) }));
+      });
+      req.on('error', reject);
+      req.write(`{"readings":[{"t":"${iso(90)}","v":4.5}],"pad":"`);
+      let sent = 0;
+      const more = () => {
+        if (sent++ < 6) { req.write('x'.repeat(64 * 1024)); setTimeout(more, 10); } else req.end('"}');
+      };
+      more();
+    });
+    expect(answer.status).toBe(413);
+    expect(answer.type).toContain('application/problem+json');
+    expect(await stored(node.nodeId)).toBe(before);
   });
 
   it('answers 401 with WWW-Authenticate for missing, malformed, forged and alg:none tokens', async () => {

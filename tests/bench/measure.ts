@@ -2,9 +2,9 @@ import { execSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 
 /**
- * Resident memory (MB) of the app server process (the node process running serve.ts) of this
- * run: only the one started with PORT = APP_URL's port, so another stack on the machine (a
- * test slot) is not counted.
+ * Resident memory (MB) of the app server of this run: the node processes running serve.ts
+ * with PORT = APP_URL's port (so another stack on the machine is not counted), summed over
+ * its workers when APP_WORKERS > 1; the tsx launcher in front of them is not counted.
  */
 export function appRssMb(port = Number(new URL(process.env.APP_URL ?? 'http://127.0.0.1:3000').port)): number {
   let pids: string[] = [];
@@ -13,18 +13,18 @@ export function appRssMb(port = Number(new URL(process.env.APP_URL ?? 'http://12
   } catch {
     return NaN;
   }
-  let max = 0;
+  let total = 0;
   for (const pid of pids) {
     try {
       const environ = readFileSync(`/proc/${pid}/environ`, 'utf8').split('\0');
-      if (!environ.includes(`PORT=${port}`)) continue;
+      if (!environ.includes(`PORT=${port}`) || readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('.bin/tsx')) continue;
       const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
-      if (m) max = Math.max(max, Number(m[1]) / 1024);
+      if (m) total += Number(m[1]) / 1024;
     } catch {
       /* process gone */
     }
   }
-  return max;
+  return total;
 }
 
 export function percentile(values: number[], p: number): number {
