@@ -26,7 +26,7 @@ export function classifySmtpError(error: unknown): SmtpVerdict {
   const summary = `${e.responseCode ? `${e.responseCode} ` : ''}${e.code ? `${e.code}: ` : ''}${e.message ?? String(error)}`.slice(0, 1000);
   if (typeof e.responseCode === 'number' && e.responseCode >= 500) return { kind: 'permanent', connection: false, summary };
   if (typeof e.responseCode === 'number' && e.responseCode >= 400) {
-    // RFC 5321 §4.2.2: 421 is "service not available, closing transmission channel", whatever the command.
+    // RFC 5321 §4.2.2 (from memory): 421 is "service not available, closing transmission channel", whatever the command.
     const relay = e.responseCode === 421 || (e.command !== undefined && SESSION_COMMANDS.has(e.command));
     return { kind: 'temporary', connection: relay, summary };
   }

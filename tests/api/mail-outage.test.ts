@@ -2,14 +2,16 @@ import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
 import { runMailPass } from '@/lib/jobs/mail-pass';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { freePort, readMessages, SMTP_FROM, startCatcher } from './alerts-fixtures';
-import { addNode, createOutageOrg, MAIL_TICK_MS, runTicks, startFailingRelay, writeNightReadings, type PlannedNode } from './helpers/mail-outage';
+import { freePort, readMessages, SMTP_FROM } from './alerts-fixtures';
+import { addNode, createOutageOrg, MAIL_TICK_MS, runTicks, startOutage, writeNightReadings, type PlannedNode } from './helpers/mail-outage';
+import { watchOutbox, type OutboxRow } from './helpers/mail-outbox-watch';
 
 // Issue 9, "mail outage": the relay down for an hour of simulated time while real margin passes
 // open real alerts in two organizations; then the relay is back and the job runner's ticks go on.
-// Checklist: OWASP ASVS 5.0 V16.5.2 ("the application continues to operate securely when access
-// to external resources fails", fail safe, no loss) and, for the outbox itself, common practice
-// (transactional outbox: at-least-once hand-over, one Message-ID per message, bounded backoff).
+// Checklist: OWASP ASVS 5.0 V16.5.2 ("the application continues to operate securely when external
+// resource access fails", e.g. graceful degradation: the relay is that resource, no alert is lost)
+// and, for the outbox itself, common practice (transactional outbox: at-least-once hand-over,
+// one Message-ID per message, capped exponential backoff with jitter).
 // Simulated nights in Oct 2026, earlier than every other test's clock, so no other test's mail is due.
 const APP_URL = 'http://127.0.0.1:3999';
 const RECIPIENTS = ['owner', 'deployer', 'viewer'] as const;
@@ -22,8 +24,6 @@ afterEach(async () => {
 });
 afterAll(closeDb);
 
-type Row = { id: number; org_id: number; alert_id: number; to_address: string; message_id: string; status: string; attempts: number; next_attempt_at: Date; last_error: string | null; sent_at: Date | null; created_at: Date };
-
 // The retry policy (lib/mail/retry.ts): a message the relay deferred waits at most 1 h, a relay
 // that is unavailable (refused, 421, greeting or HELO refused) at most 5 min; a hold at most 1 h.
 // Derived here from the shortest waits (half of each ceiling): deferred, 15+30+…+960 s = 1905 s
@@ -31,7 +31,6 @@ type Row = { id: number; org_id: number; alert_id: number; to_address: string; m
 // then 150 s each, so at most 27 failures in the hour and one success.
 const DEFERRED = { retryCapMs: 3_600_000, maxAttempts: 9 };
 const RELAY_DOWN = { retryCapMs: 300_000, maxAttempts: 28 };
-const HOLD_CAP_MS = 3_600_000;
 
 describe.each([
   { relay: 'stopped (connection refused)', failing: null, day: '2026-10-13', policy: RELAY_DOWN },
@@ -60,57 +59,28 @@ describe.each([
 
     const port = await freePort();
     const smtp = { host: '127.0.0.1', port, from: SMTP_FROM, timeoutMs: 5000 };
-    let mail: Awaited<ReturnType<typeof startCatcher>> | null = null;
-    if (failing === 'tempfail') {
-      mail = await startCatcher(label, port);
-      mail.catcher.mode = 'tempfail';
-      stopAfterTest.push(() => mail!.catcher.close());
-    } else if (failing) {
-      stopAfterTest.push((await startFailingRelay(port, failing)).close);
-    }
-    const caps = new Map([[a.orgId, 60], [b.orgId, 4]]);
-    const rows = () => db()('email_outbox').whereIn('org_id', [a.orgId, b.orgId]).orderBy('id') as Promise<Row[]>;
-    const lastError = new Map<number, string | null>();
-    const everHeld = new Set<number>();
-    const checkTick = async (now: Date) => {
-      for (const row of await rows()) {
-        expect(row.status, `row ${row.id} at ${now.toISOString()}`).not.toBe('dead');
-        expect(row.attempts).toBeLessThanOrEqual(policy.maxAttempts);
-        const ahead = new Date(row.next_attempt_at).getTime() - now.getTime();
-        const held = row.last_error?.startsWith('held');
-        if (row.status === 'pending') expect(ahead, `row ${row.id} at ${now.toISOString()}`).toBeLessThanOrEqual(held ? HOLD_CAP_MS : policy.retryCapMs);
-        const newlyHeld = held && row.last_error !== lastError.get(row.id);
-        lastError.set(row.id, row.last_error);
-        if (!newlyHeld) continue;
-        everHeld.add(row.id);
-        // Held only when the organization really sent its cap in the hour up to now (common practice: a cap counts sends).
-        const sentInHour = (await rows()).filter((r) => r.org_id === row.org_id && r.sent_at && now.getTime() - new Date(r.sent_at).getTime() < 3_600_000);
-        expect(sentInHour.length, `row ${row.id} held at ${now.toISOString()}`).toBeGreaterThanOrEqual(caps.get(row.org_id)!);
-      }
-    };
+    const relayDown = await startOutage({ port, failing, label });
+    stopAfterTest.push(relayDown.stop);
+    const rows = () => db()('email_outbox').whereIn('org_id', [a.orgId, b.orgId]).orderBy('id') as Promise<OutboxRow[]>;
+    const watch = watchOutbox({ rows, caps: new Map([[a.orgId, 60], [b.orgId, 4]]), retryCapMs: policy.retryCapMs, maxAttempts: policy.maxAttempts });
 
     // The outage: one hour of runner ticks, alerts opening all along; nothing can be sent.
-    await runTicks({ knex: db(), from: at(0), to: at(60), orgIds: [a.orgId, b.orgId], smtp, appUrl: APP_URL, afterTick: checkTick });
+    await runTicks({ knex: db(), from: at(0), to: at(60), orgIds: [a.orgId, b.orgId], smtp, appUrl: APP_URL, afterTick: watch.check });
     const duringOutage = await rows();
     expect(duringOutage.length).toBe(7 * RECIPIENTS.length); // seven alerts opened during the outage, three people each
     expect(duringOutage.every((r) => r.status === 'pending')).toBe(true);
     expect(duringOutage.filter((r) => r.attempts > 0).length).toBeGreaterThan(0);
     const expectedError = failing === null ? /ECONNREFUSED/ : new RegExp(`^${failing === 'tempfail' ? 451 : failing} `);
     expect(duringOutage.filter((r) => r.last_error && !r.last_error.startsWith('held')).every((r) => expectedError.test(r.last_error!))).toBe(true);
+    expect(relayDown.received()).toBe(0);
 
     // The relay is back on the same port; the runner keeps ticking until all is sent, and 15 minutes more.
-    if (mail) {
-      mail.catcher.mode = 'accept';
-    } else {
-      for (const stop of stopAfterTest.splice(0)) await stop();
-      mail = await startCatcher(label, port);
-      stopAfterTest.push(() => mail!.catcher.close());
-    }
+    const mail = await relayDown.restore();
     let allSentAt: Date | null = null;
     const end = await runTicks({
       knex: db(), from: at(60), to: at(6 * 60), orgIds: [a.orgId, b.orgId], smtp, appUrl: APP_URL,
       afterTick: async (now) => {
-        await checkTick(now);
+        await watch.check(now);
         const current = await rows();
         if (!allSentAt && current.length === 8 * RECIPIENTS.length && current.every((r) => r.status === 'sent')) allSentAt = now;
         return allSentAt !== null && now.getTime() - allSentAt.getTime() >= 15 * 60_000;
@@ -130,7 +100,7 @@ describe.each([
 
     // Every one arrived exactly once, by Message-ID, and nothing else arrived for these people.
     const addresses = new Set([...people(a), ...people(b)]);
-    const received = readMessages(mail!.dir).filter((m) => [...addresses].some((address) => m.headers.includes(address)));
+    const received = readMessages(mail.dir).filter((m) => [...addresses].some((address) => m.headers.includes(address)));
     const ids = received.map((m) => /^Message-ID: (\S+)/im.exec(m.headers)?.[1]);
     expect(ids.sort()).toEqual(final.map((r) => r.message_id).sort());
     expect(new Set(ids).size).toBe(ids.length);
@@ -139,12 +109,12 @@ describe.each([
     // The cap of organization b held mail back and let it go later: never more than 4 in an hour.
     const sentB = final.filter((r) => r.org_id === b.orgId).map((r) => new Date(r.sent_at!).getTime()).sort((x, y) => x - y);
     for (let i = 4; i < sentB.length; i++) expect(sentB[i] - sentB[i - 4]).toBeGreaterThanOrEqual(3_600_000);
-    expect([...everHeld].some((id) => final.find((r) => r.id === id)?.org_id === b.orgId)).toBe(true);
+    expect([...watch.everHeld].some((id) => final.find((r) => r.id === id)?.org_id === b.orgId)).toBe(true);
     // Organization a has no cap in the way: its mail waited at most one retry ceiling after the relay came back.
     const waitedMs = final.filter((x) => x.org_id === a.orgId).map((r) => new Date(r.sent_at!).getTime() - Math.max(at(60).getTime(), new Date(r.created_at).getTime()));
     for (const w of waitedMs) expect(w).toBeLessThanOrEqual(policy.retryCapMs + MAIL_TICK_MS);
     console.log(`[mail-outage] ${relay}: ${final.length} e-mails, all sent ${(allSentAt!.getTime() - at(60).getTime()) / 60_000} min after recovery;`
-      + ` org a waited at most ${Math.max(...waitedMs) / 60_000} min; attempts ≤ ${Math.max(...final.map((r) => r.attempts))}; ${everHeld.size} held by the cap`);
+      + ` org a waited at most ${Math.max(...waitedMs) / 60_000} min; attempts ≤ ${Math.max(...final.map((r) => r.attempts))}; ${watch.everHeld.size} held by the cap`);
   }, 600_000);
 });
 

@@ -6,7 +6,7 @@ import type { Knex } from 'knex';
 import { runMailPass } from '@/lib/jobs/mail-pass';
 import { runMarginPass } from '@/lib/jobs/margin-pass';
 import type { MailPassReport, SmtpSettings } from '@/lib/mail/sender';
-import { createTestOrg, insertReading, voltsForMargin, type TestOrg } from '../alerts-fixtures';
+import { createTestOrg, insertReading, startCatcher, voltsForMargin, type TestOrg } from '../alerts-fixtures';
 
 /** An SMTP relay that greets (220), then answers every command with `code` (421 closes the channel, RFC 5321 §3.8). */
 export async function startFailingRelay(port: number, code: 421 | 451) {
@@ -32,6 +32,31 @@ export async function startFailingRelay(port: number, code: 421 | 451) {
       for (const s of sockets) s.destroy();
       server.close(() => resolve());
     }),
+  };
+}
+
+/**
+ * The relay's outage on `port`: nobody listening (connection refused), a relay failing every
+ * command, or the catcher deferring every message (451 after DATA). restore() brings the real
+ * catcher back on the same port and returns it.
+ */
+export async function startOutage({ port, failing, label }: { port: number; failing: null | 421 | 451 | 'tempfail'; label: string }) {
+  let catcher = failing === 'tempfail' ? await startCatcher(label, port) : null;
+  if (catcher) catcher.catcher.mode = 'tempfail';
+  let relay = typeof failing === 'number' ? await startFailingRelay(port, failing) : null;
+  return {
+    received: () => catcher?.catcher.received ?? 0,
+    restore: async () => {
+      await relay?.close();
+      relay = null;
+      catcher ??= await startCatcher(label, port);
+      catcher.catcher.mode = 'accept';
+      return catcher;
+    },
+    stop: async () => {
+      await relay?.close();
+      await catcher?.catcher.close();
+    },
   };
 }
 
