@@ -8,6 +8,7 @@ import { parseIngestBody, type IngestRequest } from './body';
 import { authenticateDevice, type DeviceContext } from './device-auth';
 import type { NormalizedReading } from './normalize';
 import { takeToken } from './rate-limit';
+import { statusUpsert } from './status-upsert';
 import { storeAllNew } from './store-fast';
 
 /**
@@ -60,7 +61,8 @@ function statusAfter(device: DeviceContext, fresh: NormalizedReading[], now: Dat
 async function updateStatus(trx: Knex.Transaction, device: DeviceContext, fresh: NormalizedReading[], now: Date) {
   const status = statusAfter(device, fresh, now);
   if (!status) return null;
-  await trx('node_status').insert({ node_id: device.nodeId, org_id: device.orgId, ...status }).onConflict('node_id').merge();
+  const upsert = statusUpsert(device.nodeId, device.orgId, status);
+  await trx.raw(upsert.sql, upsert.bindings as Knex.RawBinding[]);
   return { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };
 }
 

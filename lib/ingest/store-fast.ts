@@ -4,6 +4,7 @@ import { rollupDeltaStatement } from '../db/queries/rollups';
 import { sqlUtc } from '../db/sql-time';
 import type { DerivedStatus } from '../status/derive-status';
 import type { NormalizedReading } from './normalize';
+import { statusUpsert } from './status-upsert';
 
 /**
  * The optimistic path of a post whose readings are all new (the usual case): readings,
@@ -13,8 +14,6 @@ import type { NormalizedReading } from './normalize';
 // Dates are written as UTC, as everywhere else in the schema.
 const format = (sql: string, values: unknown[]) => mysql.format(sql, values as Parameters<typeof mysql.format>[1], false, 'Z');
 
-const STATUS_COLUMNS = ['state', 'last_reading_at', 'volts', 'panel_volts', 'energy_joules', 'soc', 'burst_floor_volts', 'reserve_joules', 'margin', 'load_watts', 'recharge_at', 'brownout_at', 'next_report_s', 'evaluated_at'] as const;
-
 export async function storeAllNew(opts: { nodeId: number; orgId: number; readings: NormalizedReading[]; status: DerivedStatus | null }): Promise<boolean> {
   const { nodeId, orgId, readings, status } = opts;
   const parts: string[] = ['START TRANSACTION'];
@@ -23,12 +22,8 @@ export async function storeAllNew(opts: { nodeId: number; orgId: number; reading
   const rollup = rollupDeltaStatement(nodeId, readings);
   if (rollup) parts.push(format(rollup.sql, rollup.bindings));
   if (status) {
-    const values = STATUS_COLUMNS.map((c) => status[c]);
-    parts.push(format(
-      `INSERT INTO node_status (node_id, org_id, ${STATUS_COLUMNS.join(', ')}) VALUES (?, ?, ${STATUS_COLUMNS.map(() => '?').join(', ')})
-       ON DUPLICATE KEY UPDATE ${STATUS_COLUMNS.map((c) => `${c} = VALUES(${c})`).join(', ')}`,
-      [nodeId, orgId, ...values],
-    ));
+    const upsert = statusUpsert(nodeId, orgId, status);
+    parts.push(format(upsert.sql, upsert.bindings));
   }
   parts.push('COMMIT');
   const conn = await fastPool().getConnection();

@@ -1,0 +1,18 @@
+import type { DerivedStatus } from '../status/derive-status';
+
+/**
+ * The node's status row after a post, written only if this post's newest reading is not older
+ * than the one the row already reflects: two posts of one node committing out of order (two
+ * app instances, a store-and-forward backlog beside a live reading) must not leave the status
+ * on the older reading. `last_reading_at` is assigned last, because MariaDB lets each later
+ * assignment of ON DUPLICATE KEY UPDATE see the columns already changed.
+ */
+export const STATUS_COLUMNS = ['state', 'volts', 'panel_volts', 'energy_joules', 'soc', 'burst_floor_volts', 'reserve_joules', 'margin', 'load_watts', 'recharge_at', 'brownout_at', 'next_report_s', 'evaluated_at', 'last_reading_at'] as const;
+
+const NEWER = '(node_status.last_reading_at IS NULL OR VALUES(last_reading_at) >= node_status.last_reading_at)';
+
+export function statusUpsert(nodeId: number, orgId: number, status: DerivedStatus): { sql: string; bindings: unknown[] } {
+  const sql = `INSERT INTO node_status (node_id, org_id, ${STATUS_COLUMNS.join(', ')}) VALUES (?, ?, ${STATUS_COLUMNS.map(() => '?').join(', ')})
+    ON DUPLICATE KEY UPDATE ${STATUS_COLUMNS.map((c) => `${c} = IF(${NEWER}, VALUES(${c}), ${c})`).join(', ')}`;
+  return { sql, bindings: [nodeId, orgId, ...STATUS_COLUMNS.map((c) => status[c])] };
+}
