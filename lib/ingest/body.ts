@@ -57,25 +57,34 @@ export async function parseIngestBody(request: IngestRequest, receivedAt: Date):
   const type = mediaType(request);
   if (type !== 'application/json' && type !== 'text/csv') throw problems.unsupportedMedia('Send application/json or text/csv.');
   const text = await readBodyLimited(request);
-  const items = type === 'application/json' ? jsonItems(text) : csvItems(text);
+  const { items, single } = type === 'application/json' ? jsonItems(text) : { items: csvItems(text), single: false };
   if (items.length > MAX_READINGS_PER_POST) throw problems.tooLarge(`At most ${MAX_READINGS_PER_POST} readings a post; this one has ${items.length}.`);
   const readings: NormalizedReading[] = [];
   const bad: InvalidParam[] = [];
-  items.forEach(({ raw, pointer, error }) => {
-    if (error) return bad.push({ pointer, detail: error });
+  // Pointers are built only for a reading that has something to report.
+  const pointer = (i: number) => (single ? '' : `/readings/${i}`);
+  for (let i = 0; i < items.length; i++) {
+    const { raw, error } = items[i];
+    if (error) {
+      bad.push({ pointer: pointer(i), detail: error });
+      continue;
+    }
     const quick = fastReading(raw, receivedAt);
-    if (quick) return readings.push(quick);
-    const { reading, problems: p } = normalizeReading(raw, pointer, receivedAt);
+    if (quick) {
+      readings.push(quick);
+      continue;
+    }
+    const { reading, problems: p } = normalizeReading(raw, pointer(i), receivedAt);
     if (reading) readings.push(reading);
     bad.push(...p);
-  });
+  }
   if (bad.length) throw problems.invalid(bad, 'Nothing was stored: fix these readings and send the batch again.');
   return readings;
 }
 
-type Item = { raw?: unknown; pointer: string; error?: string };
+type Item = { raw?: unknown; error?: string };
 
-function jsonItems(text: string): Item[] {
+function jsonItems(text: string): { items: Item[]; single: boolean } {
   let body: unknown;
   try {
     body = JSON.parse(text);
@@ -83,11 +92,10 @@ function jsonItems(text: string): Item[] {
     throw problems.badRequest('The body is not valid JSON.');
   }
   if (body === null || typeof body !== 'object' || Array.isArray(body)) throw problems.badRequest('Send one reading object, or {"readings": [...]}.');
-  if (!('readings' in body)) return [{ raw: body, pointer: '' }];
+  if (!('readings' in body)) return { items: [{ raw: body }], single: true };
   const batch = batchSchema.safeParse(body);
   if (!batch.success) throw problems.invalid(batch.error.issues.map((i) => ({ pointer: '/' + i.path.join('/'), detail: i.message })));
-  if (batch.data.readings.length > MAX_READINGS_PER_POST) return batch.data.readings.map(() => ({ pointer: '' })); // caller answers 413
-  return batch.data.readings.map((raw, i) => ({ raw, pointer: `/readings/${i}` }));
+  return { items: batch.data.readings.map((raw) => ({ raw })), single: false };
 }
 
 function csvItems(text: string): Item[] {
@@ -97,8 +105,7 @@ function csvItems(text: string): Item[] {
   const header = parseCsvHeader(lines[0]);
   if ('error' in header) throw problems.badRequest(header.error);
   return lines.slice(1).map((line, i) => {
-    const pointer = `/readings/${i}`; // line i + 2 of the file
-    const obj = csvLineToObject(header.fields, line);
-    return 'error' in obj ? { pointer, error: `Line ${i + 2}: ${obj.error}` } : { raw: obj, pointer };
+    const obj = csvLineToObject(header.fields, line); // reading i is line i + 2 of the file
+    return 'error' in obj ? { error: `Line ${i + 2}: ${obj.error}` } : { raw: obj };
   });
 }
