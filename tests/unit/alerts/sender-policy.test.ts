@@ -13,6 +13,22 @@ describe('SMTP failure classes (RFC 5321 §4.2.1: 4yz transient, 5yz permanent)'
   });
 });
 
+describe('a relay that is itself unavailable (RFC 5321 §4.2.2, 421: service not available — from memory)', () => {
+  it('marks 421 and a refused greeting or HELO as the relay being down, a 451 to one message not', () => {
+    expect(classifySmtpError({ code: 'EENVELOPE', responseCode: 421, command: 'MAIL FROM', message: 'closing' })).toMatchObject({ kind: 'temporary', connection: true });
+    expect(classifySmtpError({ code: 'EPROTOCOL', responseCode: 451, command: 'EHLO', message: 'busy' })).toMatchObject({ kind: 'temporary', connection: true });
+    expect(classifySmtpError({ code: 'EPROTOCOL', responseCode: 454, command: 'HELO', message: 'busy' })).toMatchObject({ kind: 'temporary', connection: true });
+    expect(classifySmtpError({ code: 'EMESSAGE', responseCode: 451, command: 'DATA', message: 'later' })).toMatchObject({ kind: 'temporary', connection: false });
+  });
+
+  it('retries sooner while the relay is down: at most 5 minutes between tries', () => {
+    for (let attempts = 1; attempts <= 30; attempts++) {
+      expect(retryDelaySeconds({ attempts, random: () => 1, relayDown: true })).toBeLessThanOrEqual(300);
+    }
+    expect(retryDelaySeconds({ attempts: 30, random: () => 1 })).toBe(3600);
+  });
+});
+
 describe('backoff with jitter (derived here: half to all of min(1 h, 30 s·2^(n−1)))', () => {
   it('doubles per attempt, stays within its jitter band, and caps at one hour', () => {
     expect(retryDelaySeconds({ attempts: 1, random: () => 0 })).toBe(15);
