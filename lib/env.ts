@@ -15,6 +15,8 @@ const schema = z.object({
   DB_USER: z.string().default('duskwatch_app'),
   DB_PASSWORD: z.string().default(''),
   DB_POOL_MAX: z.coerce.number().int().positive().default(16),
+  /** Connections of the ingest pool: more commits in flight lets MariaDB group more of them per flush. */
+  DB_INGEST_POOL_MAX: z.coerce.number().int().positive().default(32),
   APP_URL: z.string().url().default('http://127.0.0.1:3000'),
   NEXTAUTH_SECRET: z.string().min(32).optional(),
   DEVICE_TOKEN_SECRET: z.string().min(32).optional(),

@@ -20,7 +20,7 @@ export function fastPool(): mysql.Pool {
       timezone: 'Z',
       supportBigNumbers: true,
       multipleStatements: true,
-      connectionLimit: env.DB_POOL_MAX,
+      connectionLimit: env.DB_INGEST_POOL_MAX,
       connectTimeout: 5000,
     });
   }
