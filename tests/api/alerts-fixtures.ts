@@ -67,9 +67,14 @@ export async function createTestOrg(knex: Knex, opts: { nodeName?: string; siteN
 
 /** The bank volts at which the model gives `margin` at `at` (bisection; margin rises with volts). */
 export function voltsForMargin({ at, margin }: { at: Date; margin: number }): number {
-  let low = spec.converter.cutoffVolts;
-  let high = spec.bank.cellsSeries * spec.bank.cellRatedVolts * 0.97;
-  const marginAt = (volts: number) => evaluateNode({ ...spec, volts, at }).margin;
+  return voltsForMarginOf(spec, at, margin);
+}
+
+/** The same for any node model. */
+export function voltsForMarginOf(model: NodeModelSpec, at: Date, margin: number): number {
+  let low = model.converter.cutoffVolts;
+  let high = model.bank.cellsSeries * model.bank.cellRatedVolts * 0.97;
+  const marginAt = (volts: number) => evaluateNode({ ...model, volts, at }).margin;
   if (marginAt(high) < margin) throw new Error(`margin ${margin} is out of reach at ${at.toISOString()}`);
   for (let i = 0; i < 60; i++) {
     const mid = (low + high) / 2;

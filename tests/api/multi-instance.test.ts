@@ -2,9 +2,9 @@ import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
 import { evaluateNode } from '@/lib/energy';
-import { createTestOrg, readMessages, spec, startCatcher, type TestOrg } from './alerts-fixtures';
+import { createTestOrg, readMessages, spec, startCatcher, voltsForMarginOf, type TestOrg } from './alerts-fixtures';
 import {
-  addNodeLike, deviceTokens, marginPassCounts, postReadings, startAppInstances, startJobRunners, voltsForMarginOf, waitFor, type Reading,
+  addNodeLike, deviceTokens, marginPassCounts, postReadings, startAppInstances, startJobRunners, waitFor, type Reading,
 } from './helpers/instances';
 import { appUrl } from './helpers/stack';
 

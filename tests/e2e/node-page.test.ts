@@ -101,9 +101,12 @@ describe('the node page in Chromium', () => {
   it('shows another organization’s node as not found, and a viewer no credentials tab', async () => {
     const { page } = await newPage(browser);
     await signInThroughForm(page, 'viewer@larkspur.example');
-    // The page streams behind its loading state, so the status is already sent when the node
-    // turns out to be missing: the answer is the not-found page (and noindex), not a 404 status.
-    await page.goto(`/nodes/${otherOrgNodeId}`);
+    // The node segment's layout looks the node up before anything streams: a real 404.
+    const answer = await page.goto(`/nodes/${otherOrgNodeId}`);
+    expect(answer?.status()).toBe(404);
+    await page.getByTestId('node-not-found').waitFor();
+    expect((await page.goto(`/nodes/${otherOrgNodeId}/settings`))?.status()).toBe(404);
+    expect((await page.goto('/nodes/99999999'))?.status()).toBe(404);
     await page.getByTestId('node-not-found').waitFor();
     expect(await page.getByTestId('node-page').count()).toBe(0);
     expect(await page.content()).not.toContain('CF-met-1');

@@ -6,8 +6,6 @@ import { setTimeout as sleep } from 'node:timers/promises';
 import type { Knex } from 'knex';
 import { ProcessGroup, waitForHttp } from '@/db/lifecycle/processes';
 import { currentTestProfile } from '@/db/lifecycle/profile';
-import { evaluateNode } from '@/lib/energy';
-import type { NodeModelSpec } from '@/lib/status/node-spec';
 import { freePort, PASSWORD, type TestOrg } from '../alerts-fixtures';
 import { signedIn } from './session';
 
@@ -93,20 +91,6 @@ export async function deviceTokens(org: TestOrg, nodeIds: number[]): Promise<str
     tokens.push(res.body.token as string);
   }
   return tokens;
-}
-
-/** The bank volts at which the model gives `margin` at `at` for `spec` (bisection). */
-export function voltsForMarginOf(spec: NodeModelSpec, at: Date, margin: number): number {
-  let low = spec.converter.cutoffVolts;
-  let high = spec.bank.cellsSeries * spec.bank.cellRatedVolts * 0.95;
-  const marginAt = (volts: number) => evaluateNode({ ...spec, volts, at }).margin;
-  if (marginAt(high) < margin) throw new Error(`margin ${margin} is out of reach at ${at.toISOString()}`);
-  for (let i = 0; i < 60; i++) {
-    const mid = (low + high) / 2;
-    if (marginAt(mid) < margin) low = mid;
-    else high = mid;
-  }
-  return high;
 }
 
 export async function waitFor(check: () => Promise<boolean>, timeoutMs: number, what: string): Promise<void> {

@@ -1,41 +1,24 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
-import { cache } from 'react';
 import { AlertsPanel } from '@/components/node/alerts-panel';
 import { ExportPanel } from '@/components/node/export-panel';
 import { NightTable } from '@/components/node/night-table';
 import { NodeCharts } from '@/components/node/node-charts';
 import { NodeOverview } from '@/components/node/node-overview';
 import { NodeTabs } from '@/components/node/node-tabs';
-import { requireMember } from '@/lib/auth/guard';
-import { loadNodeStatus } from '@/lib/db/queries/series';
-import { ProblemError } from '@/lib/errors';
+import { loadNodePage } from './load-node';
 
 /**
  * One node's story: first paint from the server (status as of now), then the client keeps it
  * live — /status polled for the figures, /series for the charts, /nights for the table.
  */
-const loadPage = cache(async (raw: string) => {
-  const member = await requireMember('fleet:read');
-  const nodeId = Number(raw);
-  if (!Number.isSafeInteger(nodeId) || nodeId <= 0 || String(nodeId) !== raw) notFound();
-  try {
-    return { member, status: await loadNodeStatus({ orgId: member.orgId, nodeId }) };
-  } catch (e) {
-    // Another organization's node is "not found", exactly like a missing one.
-    if (e instanceof ProblemError && e.status === 404) notFound();
-    throw e;
-  }
-});
-
 export async function generateMetadata({ params }: { params: Promise<{ nodeId: string }> }): Promise<Metadata> {
-  const { status } = await loadPage((await params).nodeId);
+  const { status } = await loadNodePage((await params).nodeId);
   return { title: status.node.name };
 }
 
 export default async function NodePage({ params }: { params: Promise<{ nodeId: string }> }) {
-  const { member, status } = await loadPage((await params).nodeId);
+  const { member, status } = await loadNodePage((await params).nodeId);
   const { node } = status;
   return (
     <article data-testid="node-page" data-node-id={node.id}>
