@@ -19,7 +19,20 @@ import { storeAllNew } from './store-fast';
  * duplicates) → only after the commit returned, answer 200. Storage down or uncertain → 503
  * with Retry-After; nothing half stored.
  */
+export interface IngestReply {
+  accepted: number;
+  duplicates: number;
+  state: string;
+  next_report_s: number;
+}
+
+/** As a web Response (Next's route handler). */
 export async function ingest(request: IngestRequest): Promise<Response> {
+  return Response.json(await ingestReply(request));
+}
+
+/** The 200 reply's body; any refusal is thrown as a ProblemError. */
+export async function ingestReply(request: IngestRequest): Promise<IngestReply> {
   const receivedAt = new Date();
   const device = await storage(() => authenticateDevice(request));
   const limit = takeToken(device.nodeId);
@@ -31,7 +44,7 @@ export async function ingest(request: IngestRequest): Promise<Response> {
     const status = statusAfter(device, readings, receivedAt);
     if (await storage(() => storeAllNew({ nodeId: device.nodeId, orgId: device.orgId, readings, status }))) {
       if (status) reply = { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };
-      return Response.json({ accepted: readings.length, duplicates: 0, ...reply });
+      return { accepted: readings.length, duplicates: 0, ...reply };
     }
   }
   const result = await storage(() =>
@@ -42,7 +55,7 @@ export async function ingest(request: IngestRequest): Promise<Response> {
       },
     }),
   );
-  return Response.json({ accepted: result.accepted, duplicates: result.duplicates, ...reply });
+  return { accepted: result.accepted, duplicates: result.duplicates, ...reply };
 }
 
 /** The node's status from the newest reading, when this post brings a newer one. */

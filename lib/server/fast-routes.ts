@@ -1,6 +1,6 @@
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { problemResponse } from '../errors';
-import { ingest } from '../ingest/ingest';
+import { ingestReply } from '../ingest/ingest';
 
 /**
  * The device ingest route served straight from the Node server, ahead of Next's router: the
@@ -14,18 +14,21 @@ export function isFastRoute(req: IncomingMessage): boolean {
 }
 
 export async function serveFastRoute(req: IncomingMessage, res: ServerResponse): Promise<void> {
-  let response: Response;
   try {
-    // No web Request is built: ingest reads two headers and the body, straight from Node's.
-    response = await ingest({ headers: { get: (name) => headerOf(req, name) }, body: req });
+    // No web Request or Response is built: ingest reads two headers and the body, straight
+    // from Node's, and a 200 is written directly (a refusal goes through problemResponse).
+    const reply = JSON.stringify(await ingestReply({ headers: { get: (name) => headerOf(req, name) }, body: req }));
+    res.writeHead(200, { ...HEADERS, 'content-type': 'application/json', 'content-length': String(Buffer.byteLength(reply)) });
+    res.end(reply);
+    return;
   } catch (error) {
-    response = problemResponse(error);
+    const response = problemResponse(error);
+    const body = Buffer.from(await response.arrayBuffer());
+    const out: Record<string, string> = { ...HEADERS, 'content-length': String(body.length) };
+    response.headers.forEach((value, name) => { out[name] = value; });
+    res.writeHead(response.status, out);
+    res.end(body);
   }
-  const body = Buffer.from(await response.arrayBuffer());
-  const out: Record<string, string> = { ...HEADERS, 'content-length': String(body.length) };
-  response.headers.forEach((value, name) => { out[name] = value; });
-  res.writeHead(response.status, out);
-  res.end(body);
 }
 
 function headerOf(req: IncomingMessage, name: string): string | null {
