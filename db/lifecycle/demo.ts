@@ -3,7 +3,7 @@ import path from 'node:path';
 import { stopMariadb } from './mariadb';
 import { ProcessGroup, waitForHttp } from './processes';
 import { maintenanceEnv, profileEnv, resolveProfile } from './profile';
-import { binPath, buildAppIfStale, prepareDatabase } from './stack';
+import { appProcessEnv, binPath, buildAppIfStale, prepareDatabase } from './stack';
 import { seedDemoIfEmpty } from '../seeds/demo-seed';
 
 /** npm run demo: MariaDB, migrations, demo seed, app, job runner, mail catcher, simulator. */
@@ -19,7 +19,7 @@ async function main() {
   const group = new ProcessGroup(path.join(profile.dataDir, 'logs'));
   const tsx = binPath(profile.root, 'tsx');
   group.start('mail', tsx, ['lib/mail/run-catcher.ts'], env, { echo: true });
-  group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) });
+  group.start('app', binPath(profile.root, 'tsx'), ['lib/server/serve.ts'], appProcessEnv(env, profile.appPort));
   if (existsSync(path.join(profile.root, 'lib/jobs/run-jobs.ts'))) group.start('jobs', tsx, ['lib/jobs/run-jobs.ts'], { ...env, ...maintenanceEnv(profile) }, { echo: true });
   await waitForHttp(`${env.APP_URL}/`);
   if (existsSync(path.join(profile.root, 'simulator/cli.ts'))) {

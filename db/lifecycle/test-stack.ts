@@ -4,7 +4,7 @@ import { stopMariadb } from './mariadb';
 import { ProcessGroup, waitForHttp } from './processes';
 import type { Profile } from './profile';
 import { seedDemoIfEmpty } from '../seeds/demo-seed';
-import { binPath, buildAppIfStale, prepareDatabase } from './stack';
+import { appProcessEnv, binPath, buildAppIfStale, prepareDatabase } from './stack';
 
 /**
  * A fresh test stack (database recreated and seeded, app built and started on the profile's
@@ -19,7 +19,7 @@ export async function withTestStack<T>(profile: Profile, env: Record<string, str
     buildAppIfStale(profile.root, profile.distDir);
     if (opts.browser) ensureChromium();
     group.start('mail', binPath(profile.root, 'tsx'), ['lib/mail/run-catcher.ts'], env);
-    const appEnv = { ...env, NODE_ENV: 'production', PORT: String(profile.appPort) };
+    const appEnv = appProcessEnv(env, profile.appPort);
     // DUSKWATCH_APP_CPU_PROFILE=<dir>: the app writes a V8 CPU profile there when stopped (tuning).
     const profileDir = process.env.DUSKWATCH_APP_CPU_PROFILE;
     if (profileDir) group.start('app', process.execPath, ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, '--import', 'tsx', 'lib/server/serve.ts'], appEnv);
