@@ -27,15 +27,18 @@ async function main() {
     const day = 86_400_000;
     const startRaw = Date.now() - 380 * day;
     const startHttp = Date.now() - 300 * day;
-    const rowsPerRun = 400_000;
+    const rowsPerRun = 800_000;
 
-    // Eight clients uploading backlogs for sixteen devices (two each, so no device passes its
-    // rate limit); the raw baseline writes the same rows for the same sixteen nodes.
-    const devices = 16;
+    // Eight clients uploading backlogs for 32 devices (four each, so no device passes its rate
+    // limit); the raw baseline writes the same rows for the same 32 nodes. Both are warmed up
+    // first on other nodes and times (JIT, pools, buffer pool), since one run lasts seconds.
+    const devices = 32;
+    await rawInsertRowsPerSecond(conn, fleet.nodeIds.slice(900, 908), 20_000, Date.now() - 395 * day);
+    await ingestBatchRowsPerSecond(env.APP_URL, fleet.tokens.slice(908, 916), 20_000, Date.now() - 330 * day);
     const raw = await rawInsertRowsPerSecond(conn, fleet.nodeIds.slice(0, devices), rowsPerRun, startRaw);
     const batch = await ingestBatchRowsPerSecond(env.APP_URL, fleet.tokens.slice(0, devices), rowsPerRun, startHttp);
     rows.push({ what: 'Ingest, batches of 500, 8 clients (readings/s)', figure: batch.rowsPerSecond.toFixed(0), baseline: `raw mysql2 multi-row insert ${raw.toFixed(0)}/s`,
-      ratio: pct(batch.rowsPerSecond / raw), target: '≥ 50 %', ok: batch.rowsPerSecond / raw >= 0.5 && batch.errors === 0, tool: 'fetch, 8 concurrent clients, 16 devices' });
+      ratio: pct(batch.rowsPerSecond / raw), target: '≥ 50 %', ok: batch.rowsPerSecond / raw >= 0.5 && batch.errors === 0, tool: 'fetch, 8 concurrent clients, 32 devices' });
 
     const bare = await bareServerRequestsPerSecond(10);
     const single = await singleReadingRequestsPerSecond(env.APP_URL, fleet.tokens, 15, Date.now() - 200 * day);
