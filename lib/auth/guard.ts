@@ -12,7 +12,8 @@ export const ORG_COOKIE = 'dw-org';
 
 /**
  * The signed-in member of the current organization, re-read from the database on every
- * call: a demotion takes effect on the next request and a removed member is signed out.
+ * call: a demotion takes effect on the next request, and a removed member, or a session
+ * signed in before the account's last password change, is signed out.
  * Throws 401 when signed out (or no longer a member anywhere), 403 when the role is too low.
  */
 export async function requireMember(permission: Permission = 'fleet:read'): Promise<Member> {
@@ -24,12 +25,18 @@ export async function requireMember(permission: Permission = 'fleet:read'): Prom
 
 export async function currentMember(): Promise<Member | null> {
   const session = await getServerSession(authOptions());
-  const userId = Number((session?.user as { id?: string } | undefined)?.id);
+  const user = session?.user as { id?: string; authAt?: number } | undefined;
+  const userId = Number(user?.id);
   if (!Number.isSafeInteger(userId) || userId <= 0) return null;
   const memberships = await listMembershipsOfUser(userId);
   if (memberships.length === 0) return null;
+  // A session from before the last password change is over (OWASP ASVS 5.0 V7, session termination
+  // after a password change — from memory): the reset's purpose is to shut others out.
+  const changedAt = memberships[0].passwordChangedAt;
+  if (changedAt && new Date(changedAt).getTime() > (user?.authAt ?? 0)) return null;
   const chosen = Number((await cookies()).get(ORG_COOKIE)?.value);
-  return memberships.find((m) => m.orgId === chosen) ?? memberships[0];
+  const { passwordChangedAt: _changed, ...member } = memberships.find((m) => m.orgId === chosen) ?? memberships[0];
+  return member;
 }
 
 /**

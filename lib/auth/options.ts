@@ -56,12 +56,17 @@ function buildAuthOptions(): NextAuthOptions {
     }),
   ],
   callbacks: {
+    // authAt: when the password was checked. It survives the token's rolling renewals, so a
+    // password change (lib/auth/guard.ts) ends every session signed in before it.
     async jwt({ token, user }) {
-      if (user) token.sub = user.id;
+      if (user) {
+        token.sub = user.id;
+        token.authAt = Date.now();
+      }
       return token;
     },
     async session({ session, token }) {
-      if (session.user) (session.user as { id?: string }).id = token.sub;
+      if (session.user) Object.assign(session.user, { id: token.sub, authAt: typeof token.authAt === 'number' ? token.authAt : 0 });
       return session;
     },
   },

@@ -82,6 +82,26 @@ describe('role changes and removal take effect on the next request', () => {
 });
 
 describe('password reset', () => {
+  // OWASP ASVS 5.0 V7 (from memory): a password change ends the sessions signed in before it.
+  it('signs out every session from before the reset; a sign-in with the new password works', async () => {
+    const email = `reset-ends-${Date.now()}@larkspur.example`;
+    const { token } = await invite(email, 'viewer');
+    expect((await accept(token, 'the first long passphrase')).status).toBe(201);
+    const before = await signedIn(email, 'the first long passphrase');
+    expect((await before.agent.get('/api/v1/fleet')).status).toBe(200);
+
+    const origin = process.env.APP_URL!;
+    expect((await api().post('/api/v1/password-resets').set('origin', origin).send({ email })).status).toBe(202);
+    const mail = await db()('email_outbox').where({ to_address: email, purpose: 'password_reset' }).orderBy('id', 'desc').first();
+    const resetToken = tokenFrom(/https?:\/\/\S+reset-password\/\S+/.exec(mail.text_body)![0]);
+    expect((await api().post('/api/v1/password-resets/confirm').set('origin', origin).send({ token: resetToken, password: 'the second long passphrase' })).status).toBe(200);
+
+    expect((await before.agent.get('/api/v1/fleet')).status).toBe(401); // the same cookie, now over
+    expect((await signIn(email, 'the first long passphrase')).ok).toBe(false);
+    const after = await signedIn(email, 'the second long passphrase');
+    expect((await after.agent.get('/api/v1/fleet')).status).toBe(200);
+  });
+
   it('answers the same for unknown e-mails, and its link works once and expires', async () => {
     const origin = process.env.APP_URL!;
     const unknown = await api().post('/api/v1/password-resets').set('origin', origin).send({ email: 'nobody@larkspur.example' });

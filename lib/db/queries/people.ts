@@ -17,6 +17,8 @@ export interface MemberRow {
   orgId: number;
   orgName: string;
   role: Role;
+  /** When the user's password was last set (sessions from before it are over). */
+  passwordChangedAt?: Date | null;
 }
 
 export function normalizeEmail(email: string): string {
@@ -44,7 +46,7 @@ export async function listMembershipsOfUser(userId: number): Promise<MemberRow[]
     .join('organizations as o', 'o.id', 'm.org_id')
     .where('m.user_id', userId)
     .orderBy('m.id')
-    .select(memberColumns);
+    .select([...memberColumns, 'u.password_changed_at as passwordChangedAt']);
 }
 
 export async function listMembersOfOrg(orgId: number): Promise<MemberRow[]> {
