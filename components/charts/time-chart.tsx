@@ -3,6 +3,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type uPlot from 'uplot';
 import UplotReact from 'uplot-react';
+import { useThemeVersion } from './use-theme-version';
 import 'uplot/dist/uPlot.min.css';
 import { nightBandsPlugin, refLinesPlugin, timeMarksPlugin, type RefLine } from './night-bands';
 
@@ -78,9 +79,11 @@ export function TimeChart(props: TimeChartProps) {
   }, []);
 
   const { series, axes, nights, refLines, marks, timeZone, height = 260, onZoom, timeLabel } = props;
+  const themeVersion = useThemeVersion();
+  const measured = width > 0; // in the browser, where the CSS variables can be read
+  // Axis colours are read again when the theme changes.
+  const [ink, grid] = useMemo(() => (measured ? [css('--ink-muted'), css('--dusk-800')] : ['#888', '#888']), [themeVersion, measured]);
   const options = useMemo<uPlot.Options>(() => {
-    const ink = css('--ink-muted');
-    const grid = css('--dusk-800');
     return {
       width: Math.max(width, 280),
       height,
@@ -99,10 +102,10 @@ export function TimeChart(props: TimeChartProps) {
       hooks: onZoom ? { setSelect: [(u: uPlot) => { if (u.select.width > 4) onZoom(u.posToVal(u.select.left, 'x'), u.posToVal(u.select.left + u.select.width, 'x')); }] } : {},
       plugins: [nightBandsPlugin(nights ?? []), refLinesPlugin(refLines ?? []), timeMarksPlugin(marks ?? [])],
     };
-  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom, timeLabel]);
+  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom, timeLabel, ink, grid]);
 
   return (
-    <figure className="w-full" data-testid={props.testId}>
+    <figure className="w-full" data-testid={props.testId} data-axis-colour={ink}>
       <figcaption className="mb-1 text-sm font-bold text-ink">{props.title}</figcaption>
       <div ref={box} className="w-full [&_.u-legend]:text-xs [&_.u-legend]:text-ink-muted">
         {width > 0 ? <UplotReact options={options} data={props.data} /> : <div style={{ height }} />}

@@ -1,10 +1,12 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { useThemeVersion } from '../charts/use-theme-version';
 
 /**
  * Chart colours from the theme's CSS variables ("R G B"), read once the page is in the browser
- * (canvas needs real colour strings; the server only renders the chart's frame).
+ * (canvas needs real colour strings; the server only renders the chart's frame), and again
+ * whenever the theme changes.
  */
 export interface ChartPalette {
   ember: string;
@@ -31,12 +33,13 @@ function readVar(name: string, alpha = 1): string {
 
 export function useChartPalette(): ChartPalette {
   const [palette, setPalette] = useState<ChartPalette>(FALLBACK);
+  const themeVersion = useThemeVersion();
   useEffect(() => {
     const p = {
       ember: readVar('--ember'), emberSoft: readVar('--ember', 0.35), emberFill: readVar('--ember', 0.12), tide: readVar('--tide'),
       hazard: readVar('--hazard'), ink: readVar('--ink'), inkMuted: readVar('--ink-muted'), inkFaint: readVar('--ink-faint'),
     };
     if (Object.values(p).every(Boolean)) setPalette(p);
-  }, []);
+  }, [themeVersion]);
   return palette;
 }

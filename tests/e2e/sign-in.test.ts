@@ -48,8 +48,19 @@ describe('signing in through the real form in Chromium', () => {
     const { page, consoleErrors } = await newPage(browser);
     await signInThroughForm(page, 'viewer@larkspur.example');
     expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe('dark');
+    const chart = page.getByTestId('fleet-chart');
+    await page.waitForFunction(() => document.querySelector('[data-testid="fleet-chart"] canvas') !== null);
+    const darkAxis = await chart.getAttribute('data-axis-colour');
     await page.getByTestId('theme-toggle').click();
     expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe('light');
+    // The chart draws again in the light theme's colours, without a reload.
+    await page.waitForFunction((before) => {
+      const now = document.querySelector('[data-testid="fleet-chart"]')?.getAttribute('data-axis-colour');
+      return !!now && now !== before;
+    }, darkAxis);
+    const lightAxis = await chart.getAttribute('data-axis-colour');
+    expect(lightAxis).toBe(await page.evaluate(() => `rgb(${getComputedStyle(document.documentElement).getPropertyValue('--ink-muted').trim().split(' ').join(',')})`));
+    await screenshot(page, 'fleet-light-switched');
     await page.reload();
     await page.waitForFunction(() => document.documentElement.dataset.theme === 'light');
     await screenshot(page, 'fleet-light');
