@@ -1,5 +1,6 @@
 import knexFactory, { type Knex } from 'knex';
 import { dropPartitions, listReadingPartitions, monthStart, splitMonthsFromMax } from '../db/queries/partitions';
+import { connectionOptions } from '../db/connection';
 import { getEnv } from '../env';
 import { withNamedLock, type LockOutcome } from './named-lock';
 
@@ -62,14 +63,7 @@ export function openMaintenanceKnex({ user, password, lockWaitSeconds = 10 }: { 
   const env = getEnv();
   return knexFactory({
     client: 'mysql2',
-    connection: {
-      ...(env.DB_SOCKET ? { socketPath: env.DB_SOCKET } : { host: env.DB_HOST, port: env.DB_PORT }),
-      user: user ?? env.DB_MAINT_USER,
-      password: password ?? env.DB_MAINT_PASSWORD ?? '',
-      database: env.DB_NAME,
-      timezone: 'Z',
-      connectTimeout: 5000,
-    },
+    connection: { ...connectionOptions(env), user: user ?? env.DB_MAINT_USER, password: password ?? env.DB_MAINT_PASSWORD ?? '' },
     // Two: the named lock keeps one connection, the pass runs on the other.
     pool: {
       min: 0,
