@@ -5,7 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { isMariadbUp, startMariadb, stopMariadb } from '@/db/lifecycle/mariadb';
 import { currentTestProfile } from '@/db/lifecycle/profile';
 import { closeDb, db } from '@/lib/db/knex';
-import { startFleet, type Fleet } from '@/simulator/runner/fleet';
+import { startFleet, type Fleet, type FleetOptions } from '@/simulator/runner/fleet';
 import { buildGenericNodes } from '@/simulator/runner/generic-fleet';
 import { createTestNode } from './helpers/fleet';
 import { api, appUrl } from './helpers/stack';
@@ -29,13 +29,21 @@ function killMariadbHard(): void {
   process.kill(pid, 'SIGKILL'); // a crash: no clean shutdown, InnoDB recovers on the next start
 }
 
-async function runOutage(stop: 'clean' | 'kill') {
-  const made = await Promise.all([0, 1, 2].map(() => createTestNode(`sim-outage-${stop}`)));
-  const sims = buildGenericNodes({ count: 3, seed: stop === 'clean' ? 11 : 12, latDeg: 47.1, lonDeg: -120.5, startAt: new Date(Date.now() - 10 * 3_600_000) });
-  // Ten simulated hours replayed at 600× (60 s of wall time): readings keep coming through the outage.
+/** `count` new test nodes, each driven by a simulated node replaying the last `hours` at `speed`×. */
+async function startTestFleet(opts: { count: number; prefix: string; seed: number; hours: number; speed: number; tickMs: number; sender: FleetOptions['sender'] }) {
+  const made = await Promise.all(Array.from({ length: opts.count }, () => createTestNode(opts.prefix)));
+  const sims = buildGenericNodes({ count: opts.count, seed: opts.seed, latDeg: 47.1, lonDeg: -120.5, startAt: new Date(Date.now() - opts.hours * 3_600_000) });
   const fleet: Fleet = startFleet({
     nodes: sims.map((sim, i) => ({ nodeId: String(made[i].nodeId), token: made[i].token, label: sim.spec.slug, sim })),
-    baseUrl: appUrl(), speed: 600, tickMs: 250, recordEmitted: true,
+    baseUrl: appUrl(), speed: opts.speed, tickMs: opts.tickMs, recordEmitted: true, sender: opts.sender,
+  });
+  return { made, fleet };
+}
+
+async function runOutage(stop: 'clean' | 'kill') {
+  // Ten simulated hours replayed at 600× (60 s of wall time): readings keep coming through the outage.
+  const { made, fleet } = await startTestFleet({
+    count: 3, prefix: `sim-outage-${stop}`, seed: stop === 'clean' ? 11 : 12, hours: 10, speed: 600, tickMs: 250,
     sender: { backoffMaxMs: 3000, timeoutMs: 5000, log: (l) => console.log(l) },
   });
   const probe = [0, 1, 2].map((i) => ({ t: new Date(Date.now() - 3_600_000 - i * 1000 - 7).toISOString(), v: 4.1 }));
@@ -76,13 +84,7 @@ async function runOutage(stop: 'clean' | 'kill') {
  */
 async function runRepeatedKills(kills: number) {
   const count = 30;
-  const made = await Promise.all(Array.from({ length: count }, () => createTestNode('sim-kill-loop')));
-  const sims = buildGenericNodes({ count, seed: 21, latDeg: 47.1, lonDeg: -120.5, startAt: new Date(Date.now() - 20 * 3_600_000) });
-  const fleet: Fleet = startFleet({
-    nodes: sims.map((sim, i) => ({ nodeId: String(made[i].nodeId), token: made[i].token, label: sim.spec.slug, sim })),
-    baseUrl: appUrl(), speed: 1200, tickMs: 200, recordEmitted: true,
-    sender: { backoffMaxMs: 2000, timeoutMs: 5000 },
-  });
+  const { made, fleet } = await startTestFleet({ count, prefix: 'sim-kill-loop', seed: 21, hours: 20, speed: 1200, tickMs: 200, sender: { backoffMaxMs: 2000, timeoutMs: 5000 } });
   const log: string[] = [];
   try {
     for (let k = 1; k <= kills; k++) {

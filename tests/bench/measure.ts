@@ -1,5 +1,5 @@
 import { execSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 
 /**
  * Resident memory (MB) of the app server of this run: the node processes running serve.ts
@@ -48,4 +48,13 @@ export async function withPeakRss<T>(work: () => Promise<T>): Promise<{ value: T
   } finally {
     clearInterval(timer);
   }
+}
+
+/** Replaces the README's block between `<!-- name:start -->` and `<!-- name:end -->` with `text`. */
+export function writeReadmeBlock(name: string, text: string): void {
+  const readme = readFileSync('README.md', 'utf8');
+  const start = `<!-- ${name}:start -->`;
+  const end = `<!-- ${name}:end -->`;
+  if (!readme.includes(start) || !readme.includes(end)) return;
+  writeFileSync('README.md', readme.slice(0, readme.indexOf(start) + start.length) + `\n${text}\n` + readme.slice(readme.indexOf(end)));
 }

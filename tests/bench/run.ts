@@ -1,10 +1,10 @@
-import { readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { profileEnv, resolveProfile } from '@/db/lifecycle/profile';
 import { rootKnex } from '@/db/lifecycle/stack';
 import { withTestStack } from '@/db/lifecycle/test-stack';
 import { createBenchFleet } from './fixtures';
 import { bareServerRequestsPerSecond, ingestBatchRowsPerSecond, rawInsertRowsPerSecond, singleReadingRequestsPerSecond } from './ingest';
+import { writeReadmeBlock } from './measure';
 import { extraBenches } from './more';
 
 /**
@@ -65,12 +65,7 @@ function report(rows: Row[]) {
     ...rows.map((r) => `| ${r.what} | ${r.figure} | ${r.baseline} | ${r.ratio} | ${r.target} | ${r.ok === null ? '—' : r.ok ? 'yes' : 'no'} | ${r.tool} |`),
   ].join('\n');
   console.log(`\n${header}\n\n${table}\n`);
-  const readme = readFileSync('README.md', 'utf8');
-  const start = '<!-- bench:start -->';
-  const end = '<!-- bench:end -->';
-  if (readme.includes(start) && process.env.BENCH_ONLY !== 'ingest') {
-    writeFileSync('README.md', readme.slice(0, readme.indexOf(start) + start.length) + `\n${header}\n\n${table}\n` + readme.slice(readme.indexOf(end)));
-  }
+  if (process.env.BENCH_ONLY !== 'ingest') writeReadmeBlock('bench', `${header}\n\n${table}`);
 }
 
 main().catch((e) => {

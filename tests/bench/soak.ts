@@ -1,4 +1,3 @@
-import { readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import { profileEnv, resolveProfile } from '@/db/lifecycle/profile';
 import { rootKnex } from '@/db/lifecycle/stack';
@@ -6,7 +5,7 @@ import { withTestStack } from '@/db/lifecycle/test-stack';
 import { startFleet } from '@/simulator/runner/fleet';
 import { buildGenericNodes } from '@/simulator/runner/generic-fleet';
 import { createBenchFleet } from './fixtures';
-import { appRssMb } from './measure';
+import { appRssMb, writeReadmeBlock } from './measure';
 
 /**
  * npm run soak (issue 9, "load held"): 1000 simulated nodes post through the public ingest
@@ -75,12 +74,7 @@ async function main() {
     ...Object.entries(checks).map(([what, pass]) => `| ${what} | ${pass ? 'held' : 'FAILED'} |`),
   ].join('\n');
   console.log(`\n${header}\n\n${table}\n`);
-  const readme = readFileSync('README.md', 'utf8');
-  const start = '<!-- soak:start -->';
-  const end = '<!-- soak:end -->';
-  if (readme.includes(start) && NODES === 1000 && MINUTES >= 10) {
-    writeFileSync('README.md', readme.slice(0, readme.indexOf(start) + start.length) + `\n${header}\n\n${table}\n` + readme.slice(readme.indexOf(end)));
-  }
+  if (NODES === 1000 && MINUTES >= 10) writeReadmeBlock('soak', `${header}\n\n${table}`);
   process.exit(ok ? 0 : 1);
 }
 
