@@ -1,6 +1,7 @@
-import type { ReactNode } from 'react';
 import { KIND_INFO } from '@/lib/alerts/kinds';
-import { formatJoules, formatMargin, formatVolts, formatWattHours, formatWatts } from '@/lib/format/units';
+import { ReserveValue } from '@/components/fleet/fleet-values';
+import { Term } from '@/components/ui/term';
+import { formatJoules, formatMargin, formatVolts, formatWatts } from '@/lib/format/units';
 import type { AlertWire } from './alert-wire';
 import { SiteTime } from './site-time';
 
@@ -17,20 +18,20 @@ export function AlertFigures({ alert }: { alert: AlertWire }) {
       <div className="min-w-0">
         <p className="text-xs text-ink-faint">Figures as of <SiteTime at={d.evaluated_at} timeZone={tz} /></p>
         <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-2 text-[13px] sm:grid-cols-3 sm:gap-x-4 sm:text-sm">
-          <Item term="Night margin">
+          <Term term="Night margin">
             <span className={`figures ${short ? 'font-bold text-hazard' : ''}`}>{formatMargin(d.margin)}</span>
             {short ? <span className="block text-xs text-ink-muted">below 1: not enough</span> : null}
-          </Item>
-          <Item term="Projected brownout"><SiteTime at={d.brownout_at} timeZone={tz} empty="none projected" /></Item>
-          <Item term="Recharge"><SiteTime at={d.recharge_at} timeZone={tz} /></Item>
-          <Item term="Draw: measured / model">
+          </Term>
+          <Term term="Projected brownout"><SiteTime at={d.brownout_at} timeZone={tz} empty="none projected" /></Term>
+          <Term term="Recharge"><SiteTime at={d.recharge_at} timeZone={tz} /></Term>
+          <Term term="Draw: measured / model">
             <span className="figures">{formatWatts(d.measured_watts)} <span className="text-ink-muted">/ {formatWatts(modelWatts)}</span></span>
             <span className="block text-xs text-ink-muted">{ratio != null && Number.isFinite(ratio) ? `${ratio.toFixed(2)}× the model` : 'not measured'}</span>
-          </Item>
-          <Item term="Bank">
+          </Term>
+          <Term term="Bank">
             <span className="figures">{formatVolts(d.volts)}</span>
             {alert.kind === 'over_voltage' && d.max_volts ? <span className="block text-xs text-ink-muted">of {formatVolts(d.max_volts, 2)} max</span> : null}
-          </Item>
+          </Term>
           <KindItem alert={alert} />
         </dl>
       </div>
@@ -60,28 +61,16 @@ function KindItem({ alert }: { alert: AlertWire }) {
   const d = alert.detail ?? {};
   if (alert.kind === 'not_charging') {
     return (
-      <Item term="Gained that day">
+      <Term term="Gained that day">
         <span className="figures">{formatJoules(d.day_gain_joules)}</span>
         <span className="block text-xs text-ink-muted">{d.day_clear_sky ? 'under a clear sky' : 'sky not clear'}</span>
-      </Item>
+      </Term>
     );
   }
   if (alert.kind === 'node_dark' || alert.kind === 'node_silent') {
-    return <Item term="Last reading"><SiteTime at={d.last_reading_at} timeZone={alert.time_zone} empty="never" /></Item>;
+    return <Term term="Last reading"><SiteTime at={d.last_reading_at} timeZone={alert.time_zone} empty="never" /></Term>;
   }
   return (
-    <Item term="Reserve">
-      <span className="figures">{formatJoules(d.reserve_joules)}</span>
-      {d.reserve_joules != null ? <span className="block text-xs text-ink-muted">{formatWattHours(d.reserve_joules)}</span> : null}
-    </Item>
-  );
-}
-
-function Item({ term, children }: { term: string; children: ReactNode }) {
-  return (
-    <div className="min-w-0">
-      <dt className="text-xs text-ink-muted">{term}</dt>
-      <dd>{children}</dd>
-    </div>
+    <Term term="Reserve"><ReserveValue joules={d.reserve_joules ?? null} /></Term>
   );
 }

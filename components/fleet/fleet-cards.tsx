@@ -1,6 +1,6 @@
 import Link from 'next/link';
-import type { ReactNode } from 'react';
 import { StateGlyph } from '@/components/state-glyph';
+import { Term } from '@/components/ui/term';
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
 import { formatVolts } from '@/lib/format/units';
 import { AgeValue, DrawValue, LocalTime, MarginValue, ReserveValue, SocValue } from './fleet-values';
@@ -20,27 +20,18 @@ export function FleetCards({ nodes, now }: { nodes: FleetNodeWire[]; now: string
               <StateGlyph state={n.state} size={20} />
             </div>
             <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-2 text-sm">
-              <Item term="Bank"><span className="figures">{formatVolts(n.volts)}</span></Item>
-              <Item term="Charge"><SocValue soc={n.soc} /></Item>
-              <Item term="Reserve"><ReserveValue joules={n.reserve_joules} /></Item>
-              <Item term="Margin"><MarginValue margin={n.margin} /></Item>
-              <Item term="Recharge"><LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} /></Item>
-              <Item term="Brownout"><LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" /></Item>
-              <Item term="Last reading"><AgeValue at={n.last_reading_at} now={now} /></Item>
-              <Item term="Draw (measured / model)"><DrawValue node={n} /></Item>
+              <Term term="Bank"><span className="figures">{formatVolts(n.volts)}</span></Term>
+              <Term term="Charge"><SocValue soc={n.soc} /></Term>
+              <Term term="Reserve"><ReserveValue joules={n.reserve_joules} /></Term>
+              <Term term="Margin"><MarginValue margin={n.margin} /></Term>
+              <Term term="Recharge"><LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} /></Term>
+              <Term term="Brownout"><LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" /></Term>
+              <Term term="Last reading"><AgeValue at={n.last_reading_at} now={now} /></Term>
+              <Term term="Draw (measured / model)"><DrawValue node={n} /></Term>
             </dl>
           </Link>
         </li>
       ))}
     </ul>
-  );
-}
-
-function Item({ term, children }: { term: string; children: ReactNode }) {
-  return (
-    <div className="min-w-0">
-      <dt className="text-xs text-ink-muted">{term}</dt>
-      <dd>{children}</dd>
-    </div>
   );
 }
