@@ -9,7 +9,7 @@ import { authenticateDevice, type DeviceContext } from './device-auth';
 import type { NormalizedReading } from './normalize';
 import { takeToken } from './rate-limit';
 import { statusUpsert } from './status-upsert';
-import { storeAllNew } from './store-fast';
+import { storeAllNewGrouped } from './store-fast';
 
 /**
  * POST /api/v1/readings (DESIGN.md §5). The fixed order: authenticate the device (one query
@@ -42,7 +42,7 @@ export async function ingestReply(request: IngestRequest): Promise<IngestReply> 
   const unique = new Map(readings.map((r) => [r.t.getTime(), r]));
   if (unique.size === readings.length && readings.length <= 500) {
     const status = statusAfter(device, readings, receivedAt);
-    if (await storage(() => storeAllNew({ nodeId: device.nodeId, orgId: device.orgId, readings, status }))) {
+    if (await storage(() => storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings, status }))) {
       if (status) reply = { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };
       return { accepted: readings.length, duplicates: 0, ...reply };
     }

@@ -12,7 +12,18 @@ export const STATUS_COLUMNS = ['state', 'volts', 'panel_volts', 'energy_joules',
 const NEWER = '(node_status.last_reading_at IS NULL OR VALUES(last_reading_at) >= node_status.last_reading_at)';
 
 export function statusUpsert(nodeId: number, orgId: number, status: DerivedStatus): { sql: string; bindings: unknown[] } {
-  const sql = `INSERT INTO node_status (node_id, org_id, ${STATUS_COLUMNS.join(', ')}) VALUES (?, ?, ${STATUS_COLUMNS.map(() => '?').join(', ')})
+  return statusUpsertRows([{ nodeId, orgId, status }]);
+}
+
+/**
+ * Several nodes' status rows in one statement (posts committed together), in node order for
+ * the same lock order in every transaction. Two rows of one node are applied in turn, each
+ * against the row as the one before left it, so the newer reading still wins.
+ */
+export function statusUpsertRows(rows: { nodeId: number; orgId: number; status: DerivedStatus }[]): { sql: string; bindings: unknown[] } {
+  const sorted = [...rows].sort((a, b) => a.nodeId - b.nodeId);
+  const row = `(?, ?, ${STATUS_COLUMNS.map(() => '?').join(', ')})`;
+  const sql = `INSERT INTO node_status (node_id, org_id, ${STATUS_COLUMNS.join(', ')}) VALUES ${sorted.map(() => row).join(', ')}
     ON DUPLICATE KEY UPDATE ${STATUS_COLUMNS.map((c) => `${c} = IF(${NEWER}, VALUES(${c}), ${c})`).join(', ')}`;
-  return { sql, bindings: [nodeId, orgId, ...STATUS_COLUMNS.map((c) => status[c])] };
+  return { sql, bindings: sorted.flatMap((r) => [r.nodeId, r.orgId, ...STATUS_COLUMNS.map((c) => r.status[c])]) };
 }

@@ -1,10 +1,11 @@
 import mysql from 'mysql2/promise';
 import { fastPool } from '../db/fast-pool';
-import { rollupDeltaStatement } from '../db/queries/rollups';
+import { rollupDeltaStatementFor } from '../db/queries/rollups';
 import { sqlUtc } from '../db/sql-time';
 import type { DerivedStatus } from '../status/derive-status';
 import type { NormalizedReading } from './normalize';
-import { statusUpsert } from './status-upsert';
+import { Coalescer } from './coalesce';
+import { statusUpsertRows } from './status-upsert';
 
 /**
  * The optimistic path of a post whose readings are all new (the usual case): readings,
@@ -29,35 +30,77 @@ function num(x: number): string {
  * the post carries are left out (they default to NULL), which keeps the statement short.
  */
 export function readingsInsert(nodeId: number, readings: NormalizedReading[]): string {
-  const present = OPTIONAL.filter(([key]) => readings.some((r) => r[key] !== null));
-  const node = num(nodeId);
-  const values = readings.map((r) => {
-    let row = `(${node}, '${sqlUtc(r.t.getTime())}', ${num(r.v)}`;
-    for (const [key] of present) row += r[key] === null ? ', NULL' : `, ${num(r[key] as number)}`;
-    return row + ')';
-  });
+  return readingsInsertFor([{ nodeId, readings }]);
+}
+
+/** The same for several posts (several nodes) in one statement. */
+export function readingsInsertFor(posts: { nodeId: number; readings: NormalizedReading[] }[]): string {
+  const present = OPTIONAL.filter(([key]) => posts.some((p) => p.readings.some((r) => r[key] !== null)));
+  const values: string[] = [];
+  for (const { nodeId, readings } of posts) {
+    const node = num(nodeId);
+    for (const r of readings) {
+      let row = `(${node}, '${sqlUtc(r.t.getTime())}', ${num(r.v)}`;
+      for (const [key] of present) row += r[key] === null ? ', NULL' : `, ${num(r[key] as number)}`;
+      values.push(row + ')');
+    }
+  }
   return `INSERT INTO readings (node_id, t, v${present.map(([, column]) => `, ${column}`).join('')}) VALUES ${values.join(', ')}`;
 }
 
-export async function storeAllNew(opts: { nodeId: number; orgId: number; readings: NormalizedReading[]; status: DerivedStatus | null }): Promise<boolean> {
-  const { nodeId, orgId, readings, status } = opts;
+export interface NewPost { nodeId: number; orgId: number; readings: NormalizedReading[]; status: DerivedStatus | null }
+
+/** One post on its own: `true` when stored, `false` when a reading was already there. */
+export async function storeAllNew(post: NewPost): Promise<boolean> {
+  try {
+    await commitPacket([post]);
+    return true;
+  } catch (e) {
+    if ((e as { code?: string }).code === 'ER_DUP_ENTRY') return false;
+    throw e;
+  }
+}
+
+/**
+ * The same, carried with the other posts that arrive while the database is busy: one packet,
+ * one transaction, one log flush for all of them (lib/ingest/coalesce.ts). If the shared
+ * transaction fails for any reason (a duplicate in one post, a deadlock), nothing of it stays
+ * and each post is tried again on its own, so one device's duplicate never costs another's
+ * reading and every answer still means "committed".
+ */
+const groups = new Coalescer<NewPost, boolean>(storeGroup, { maxInFlight: 4, maxWeight: 2000, weight: (p) => p.readings.length });
+
+export function storeAllNewGrouped(post: NewPost): Promise<boolean> {
+  return groups.submit(post);
+}
+
+async function storeGroup(posts: NewPost[]): Promise<boolean[]> {
+  if (posts.length === 1) return [await storeAllNew(posts[0])];
+  try {
+    await commitPacket(posts);
+    return posts.map(() => true);
+  } catch {
+    return Promise.all(posts.map((post) => storeAllNew(post)));
+  }
+}
+
+async function commitPacket(posts: NewPost[]): Promise<void> {
   const parts: string[] = ['START TRANSACTION'];
-  parts.push(readingsInsert(nodeId, readings));
-  const rollup = rollupDeltaStatement(nodeId, readings);
+  parts.push(readingsInsertFor(posts));
+  const rollup = rollupDeltaStatementFor(posts);
   if (rollup) parts.push(format(rollup.sql, rollup.bindings));
-  if (status) {
-    const upsert = statusUpsert(nodeId, orgId, status);
+  const statuses = posts.flatMap((p) => (p.status ? [{ nodeId: p.nodeId, orgId: p.orgId, status: p.status }] : []));
+  if (statuses.length) {
+    const upsert = statusUpsertRows(statuses);
     parts.push(format(upsert.sql, upsert.bindings));
   }
   parts.push('COMMIT');
   const conn = await fastPool().getConnection();
   try {
     await conn.query(parts.join(';\n'));
-    return true;
   } catch (e) {
     // Whatever failed, nothing of this packet may stay: the open transaction is rolled back.
     await conn.query('ROLLBACK').catch(() => conn.destroy());
-    if ((e as { code?: string }).code === 'ER_DUP_ENTRY') return false;
     throw e;
   } finally {
     conn.release();

@@ -39,33 +39,48 @@ export async function applyRollupDeltas(trx: Knex | Knex.Transaction, nodeId: nu
   if (statement) await trx.raw(statement.sql, statement.bindings);
 }
 
-export function rollupDeltaStatement(nodeId: number, readings: { t: Date; v: number; vp: number | null }[]): { sql: string; bindings: (number | string | null)[] } | null {
-  if (!readings.length) return null;
-  type Bucket = { bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null };
-  // One map per bucket size keyed by the bucket's start second (numbers, not strings: this
-  // runs for every reading on the ingest path).
-  const bySize = ROLLUP_BUCKETS_SECONDS.map(() => new Map<number, Bucket>());
-  for (const r of readings) {
-    const ms = r.t.getTime();
-    for (let k = 0; k < ROLLUP_BUCKETS_SECONDS.length; k++) {
-      const bucket = ROLLUP_BUCKETS_SECONDS[k];
-      const start = Math.floor(ms / 1000 / bucket) * bucket;
-      let b = bySize[k].get(start);
-      if (!b) {
-        b = { bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
-        bySize[k].set(start, b);
+export function rollupDeltaStatement(nodeId: number, readings: RollupInput[]): { sql: string; bindings: (number | string | null)[] } | null {
+  return rollupDeltaStatementFor([{ nodeId, readings }]);
+}
+
+type RollupInput = { t: Date; v: number; vp: number | null };
+
+/**
+ * The deltas of several nodes' fresh readings in one statement (several posts committed
+ * together). Rows go in (node, bucket size, start) order, so two transactions that touch the
+ * same buckets take their locks in the same order and cannot deadlock on each other.
+ */
+export function rollupDeltaStatementFor(posts: { nodeId: number; readings: RollupInput[] }[]): { sql: string; bindings: (number | string | null)[] } | null {
+  type Bucket = { node: number; bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null };
+  // One map per node and bucket size keyed by the bucket's start second (numbers, not
+  // strings: this runs for every reading on the ingest path).
+  const byNode = new Map<number, Map<number, Bucket>[]>();
+  for (const { nodeId, readings } of posts) {
+    let bySize = byNode.get(nodeId);
+    if (!bySize) byNode.set(nodeId, (bySize = ROLLUP_BUCKETS_SECONDS.map(() => new Map<number, Bucket>())));
+    for (const r of readings) {
+      const ms = r.t.getTime();
+      for (let k = 0; k < ROLLUP_BUCKETS_SECONDS.length; k++) {
+        const bucket = ROLLUP_BUCKETS_SECONDS[k];
+        const start = Math.floor(ms / 1000 / bucket) * bucket;
+        let b = bySize[k].get(start);
+        if (!b) {
+          b = { node: nodeId, bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
+          bySize[k].set(start, b);
+        }
+        b.n++;
+        if (r.v < b.min) b.min = r.v;
+        if (r.v > b.max) b.max = r.v;
+        b.sum += r.v;
+        if (ms > b.tLast) { b.tLast = ms; b.last = r.v; }
+        if (r.vp !== null) b.vpMax = b.vpMax === null ? r.vp : Math.max(b.vpMax, r.vp);
       }
-      b.n++;
-      if (r.v < b.min) b.min = r.v;
-      if (r.v > b.max) b.max = r.v;
-      b.sum += r.v;
-      if (ms > b.tLast) { b.tLast = ms; b.last = r.v; }
-      if (r.vp !== null) b.vpMax = b.vpMax === null ? r.vp : Math.max(b.vpMax, r.vp);
     }
   }
-  const rows = bySize.flatMap((m) => [...m.values()]);
+  const rows = [...byNode.keys()].sort((a, b) => a - b).flatMap((node) => byNode.get(node)!.flatMap((m) => [...m.values()].sort((a, b) => a.start - b.start)));
+  if (!rows.length) return null;
   const placeholders = rows.map(() => '(?, ?, FROM_UNIXTIME(?), ?, ?, ?, ?, ?, ?, ?)').join(', ');
-  const bindings = rows.flatMap((b) => [nodeId, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, sqlUtc(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
+  const bindings = rows.flatMap((b) => [b.node, b.bucket, b.start, b.n, Math.fround(b.min), Math.fround(b.max), b.sum, b.last, sqlUtc(b.tLast), b.vpMax === null ? null : Math.fround(b.vpMax)]);
   const sql = `INSERT INTO reading_rollups (node_id, bucket_seconds, bucket_start, n, v_min, v_max, v_sum, v_last, t_last, vp_max)
      VALUES ${placeholders}
      ON DUPLICATE KEY UPDATE
