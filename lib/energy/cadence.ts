@@ -17,6 +17,7 @@ export function nextReportSeconds({
   volts,
   windowSeconds,
   floorVolts,
+  configuredMargin,
 }: {
   bank: BankSpec;
   converter: ConverterSpec;
@@ -26,13 +27,17 @@ export function nextReportSeconds({
   windowSeconds: number;
   /** The burst floor, if already solved (it does not depend on the interval). */
   floorVolts?: number;
+  /** The margin at the configured interval, if already computed (the caller's own evaluation). */
+  configuredMargin?: number;
 }): number {
   const model = modelBank({ bank });
   const floor = floorVolts ?? solveBurstFloor({ bank: model, converter, load }).volts;
   const configured = Math.round(load.intervalSeconds);
   const maximum = Math.floor(load.maxIntervalSeconds);
   const holds = (intervalSeconds: number) =>
-    marginOverWindow({ bank: model, converter, load, volts, windowSeconds, floorVolts: floor, intervalSeconds }).margin >= 1;
+    (intervalSeconds === configured && configuredMargin !== undefined
+      ? configuredMargin
+      : marginOverWindow({ bank: model, converter, load, volts, windowSeconds, floorVolts: floor, intervalSeconds }).margin) >= 1;
   if (holds(configured) || maximum <= configured) return configured;
   if (!holds(maximum)) return maximum;
   let failing = configured; // margin < 1 here

@@ -65,7 +65,11 @@ export function evaluateNode(input: NodeInput): NodeEvaluation {
     margin: result.margin,
     brownoutAt: result.brownoutSeconds === null ? null : new Date(at.getTime() + result.brownoutSeconds * 1000),
     state: stateFromMargin({ margin: result.margin, thresholds: input.thresholds ?? DEFAULT_THRESHOLDS }),
-    nextReportSeconds: nextReportSeconds({ bank: input.bank, converter, load, volts, windowSeconds, floorVolts }),
+    // The margin just computed is the one at the configured interval when that is whole seconds.
+    nextReportSeconds: nextReportSeconds({
+      bank: input.bank, converter, load, volts, windowSeconds, floorVolts,
+      configuredMargin: Number.isInteger(load.intervalSeconds) ? result.margin : undefined,
+    }),
     shortCircuitAmps: shortCircuitAmps({ volts, esrOhms: bank.esrOhms }),
   };
 }

@@ -47,4 +47,14 @@ describe('cadence advice', () => {
       { numRuns: 100 },
     );
   });
+
+  it("gives the same advice when the caller passes the configured interval's margin it already computed (property)", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.5, max: 5.4, noNaN: true }), (volts) => {
+        const configuredMargin = marginAt(volts, load.intervalSeconds);
+        return nextReportSeconds({ bank, converter, load, volts, windowSeconds, floorVolts, configuredMargin }) === advise(volts);
+      }),
+      { numRuns: 100 },
+    );
+  });
 });
