@@ -19,7 +19,7 @@ function unauthorized(detail: string) {
 type Lookup = { credentialId: string; nodeId: number };
 
 // Lookups that arrive while others are out go together in the next query (lib/ingest/coalesce.ts).
-const contexts = new Coalescer<Lookup, ContextRow | undefined>(loadContexts, { maxInFlight: 4, maxWeight: 200 });
+const contexts = new Coalescer<Lookup, ContextRow | undefined>(loadContexts, { maxInFlight: 8, maxWeight: 200 });
 
 async function loadContexts(lookups: Lookup[]): Promise<(ContextRow | undefined)[]> {
   const [rows] = await fastPool().query(CONTEXT_SQL, [[...new Set(lookups.map((l) => l.credentialId))]]);

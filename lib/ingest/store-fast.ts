@@ -68,7 +68,7 @@ export async function storeAllNew(post: NewPost): Promise<boolean> {
  * and each post is tried again on its own, so one device's duplicate never costs another's
  * reading and every answer still means "committed".
  */
-const groups = new Coalescer<NewPost, boolean>(storeGroup, { maxInFlight: 4, maxWeight: 2000, weight: (p) => p.readings.length });
+const groups = new Coalescer<NewPost, boolean>(storeGroup, { maxInFlight: 8, maxWeight: 2000, weight: (p) => p.readings.length });
 
 export function storeAllNewGrouped(post: NewPost): Promise<boolean> {
   return groups.submit(post);

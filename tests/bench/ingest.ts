@@ -94,3 +94,85 @@ export async function bareServerRequestsPerSecond(seconds: number): Promise<numb
     child.kill('SIGTERM');
   }
 }
+
+/**
+ * A ceiling for the single-reading run: the ingest's own database work for one reading a post
+ * (the grouped credential query and the grouped transaction, through lib/ingest itself) from 32
+ * callers at once inside the bench process, with no HTTP and no energy model (a fixed status).
+ * However lean the route, posts per second cannot pass this on the same machine.
+ */
+export async function databaseWorkReadingsPerSecond(tokens: string[], seconds: number, startMs: number) {
+  const { authenticateDevice } = await import('@/lib/ingest/device-auth');
+  const { storeAllNewGrouped } = await import('@/lib/ingest/store-fast');
+  let counter = 0;
+  let stored = 0;
+  const until = performance.now() + seconds * 1000;
+  const t0 = performance.now();
+  await Promise.all(Array.from({ length: 32 }, async () => {
+    while (performance.now() < until) {
+      const n = counter++;
+      const token = tokens[n % tokens.length];
+      const t = new Date(startMs + Math.floor(n / tokens.length) * 60_000);
+      const device = await authenticateDevice({ headers: { get: (name) => (name === 'authorization' ? `Bearer ${token}` : null) }, body: null });
+      const status = { ...FIXED_STATUS, last_reading_at: t, evaluated_at: new Date() };
+      if (await storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings: [{ t, v: 4.6, vp: null, temp: null, rssi: null, seq: null }], status })) stored++;
+    }
+  }));
+  const perSecond = stored / ((performance.now() - t0) / 1000);
+  await (await import('@/lib/db/fast-pool')).closeFastPool();
+  await (await import('@/lib/db/knex')).closeDb();
+  return perSecond;
+}
+
+/**
+ * The same for the batch run: 8 callers storing the same 500-reading posts (already validated
+ * readings, a fixed status) through lib/ingest, with no HTTP and no JSON: what the database
+ * side of ingest reaches on this machine, to set beside the raw insert.
+ */
+export async function databaseWorkBatchRowsPerSecond(tokens: string[], totalRows: number, startMs: number) {
+  const { authenticateDevice } = await import('@/lib/ingest/device-auth');
+  const { storeAllNewGrouped } = await import('@/lib/ingest/store-fast');
+  const posts = Array.from({ length: Math.ceil(totalRows / BATCH) }, (_, p) => {
+    const base = startMs + Math.floor(p / tokens.length) * BATCH * 60_000;
+    const readings = Array.from({ length: BATCH }, (_, i) => ({ t: new Date(base + i * 60_000), v: 4.5 + (i % 50) / 100, vp: null, temp: null, rssi: null, seq: null }));
+    return { token: tokens[p % tokens.length], readings };
+  });
+  let next = 0;
+  let stored = 0;
+  const t0 = performance.now();
+  await Promise.all(Array.from({ length: CLIENTS }, async () => {
+    for (let p = next++; p < posts.length; p = next++) {
+      const { token, readings } = posts[p];
+      const device = await authenticateDevice({ headers: { get: (name) => (name === 'authorization' ? `Bearer ${token}` : null) }, body: null });
+      const status = { ...FIXED_STATUS, last_reading_at: readings[readings.length - 1].t, evaluated_at: new Date() };
+      if (await storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings, status })) stored += readings.length;
+    }
+  }));
+  const perSecond = stored / ((performance.now() - t0) / 1000);
+  await (await import('@/lib/db/fast-pool')).closeFastPool();
+  await (await import('@/lib/db/knex')).closeDb();
+  return perSecond;
+}
+
+const FIXED_STATUS = {
+  state: 'steady', volts: 4.6, panel_volts: null, energy_joules: 130, soc: 0.85, burst_floor_volts: 2.1, reserve_joules: 100,
+  margin: 2, load_watts: 0.01, recharge_at: null, brownout_at: null, next_report_s: 600,
+} as const;
+
+/** The energy model's evaluation of one reading (the status every post updates), on one core. */
+export async function modelMicrosecondsPerReading(knex: { (table: string): { first(): Promise<Record<string, unknown>>; where(w: object): { first(): Promise<Record<string, unknown>> } } }) {
+  const { deriveNodeStatus } = await import('@/lib/status/derive-status');
+  const { modelSpecFromRows } = await import('@/lib/status/node-spec');
+  const node = await knex('nodes').first();
+  const site = await knex('sites').where({ id: node.site_id }).first();
+  const spec = modelSpecFromRows(node as never, site as never);
+  const run = (n: number) => {
+    const t0 = performance.now();
+    for (let i = 0; i < n; i++) {
+      deriveNodeStatus({ spec, latest: { t: new Date(Date.now() - i * 60_000), volts: 3.6 + (i % 20) / 10, panelVolts: null }, now: new Date(), thresholds: { steady: 1.5, thin: 1.1 } });
+    }
+    return ((performance.now() - t0) * 1000) / n;
+  };
+  run(2000);
+  return run(20_000);
+}
