@@ -4,8 +4,8 @@ import { connectionOptions } from './connection';
 
 /**
  * A small mysql2 pool for the ingest hot path only: it may send BEGIN … COMMIT as one
- * multi-statement packet (one round trip per post instead of six). Values go through mysql2's
- * escaping (`format`), except the readings themselves, which lib/ingest/store-fast.ts writes
+ * multi-statement packet (one round trip for a group of posts instead of six for each).
+ * Values go through mysql2's escaping (`format`), except the readings themselves, which lib/ingest/store-fast.ts writes
  * from validated finite numbers and its own time text (held equal to `format` by a property
  * test); the rest of the app uses Knex, whose pool keeps multi-statements off.
  */

@@ -15,8 +15,9 @@ import { storeAllNewGrouped } from './store-fast';
  * POST /api/v1/readings (DESIGN.md §5). The fixed order: authenticate the device (one query
  * that also loads the node's model) → rate limit → parse and validate the whole post → store
  * the readings, fold them into the chart rollups and update the node's status in ONE
- * transaction (sent as one packet when every reading is new; the careful path sorts out
- * duplicates) → only after the commit returned, answer 200. Storage down or uncertain → 503
+ * transaction (sent as one packet when every reading is new, together with the other posts
+ * that arrived meanwhile; the careful path sorts out duplicates) → only after the commit
+ * returned, answer 200. Storage down or uncertain → 503
  * with Retry-After; nothing half stored.
  */
 export interface IngestReply {
