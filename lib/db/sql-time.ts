@@ -25,3 +25,9 @@ export function sqlUtc(ms: number): string {
   const s = Math.floor(rest / 1000);
   return `${cachedPrefix}${pad2(h)}:${pad2(m)}:${pad2(s)}.${pad3(Math.round(rest - s * 1000))}`;
 }
+
+/** A finite number as an SQL literal; anything else is refused (callers pass validated numbers). */
+export function sqlNumber(x: number): string {
+  if (!Number.isFinite(x)) throw new TypeError('not a finite number');
+  return String(x);
+}

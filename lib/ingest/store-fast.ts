@@ -1,7 +1,7 @@
 import mysql from 'mysql2/promise';
 import { fastPool } from '../db/fast-pool';
-import { rollupDeltaStatementFor } from '../db/queries/rollups';
-import { sqlUtc } from '../db/sql-time';
+import { rollupDeltaSql } from '../db/queries/rollups';
+import { sqlNumber, sqlUtc } from '../db/sql-time';
 import type { DerivedStatus } from '../status/derive-status';
 import type { NormalizedReading } from './normalize';
 import { Coalescer } from './coalesce';
@@ -17,11 +17,7 @@ const format = (sql: string, values: unknown[]) => mysql.format(sql, values as P
 
 const OPTIONAL = [['vp', 'vp'], ['temp', 'temp_c'], ['rssi', 'rssi_dbm'], ['seq', 'seq']] as const;
 
-/** A finite number as an SQL literal; anything else is refused (never reached: validated). */
-function num(x: number): string {
-  if (!Number.isFinite(x)) throw new TypeError('not a finite number');
-  return String(x);
-}
+const num = sqlNumber;
 
 /**
  * The readings' multi-row INSERT, written directly: every value is a validated finite number
@@ -87,8 +83,8 @@ async function storeGroup(posts: NewPost[]): Promise<boolean[]> {
 async function commitPacket(posts: NewPost[]): Promise<void> {
   const parts: string[] = ['START TRANSACTION'];
   parts.push(readingsInsertFor(posts));
-  const rollup = rollupDeltaStatementFor(posts);
-  if (rollup) parts.push(format(rollup.sql, rollup.bindings));
+  const rollup = rollupDeltaSql(posts);
+  if (rollup) parts.push(rollup);
   const statuses = posts.flatMap((p) => (p.status ? [{ nodeId: p.nodeId, orgId: p.orgId, status: p.status }] : []));
   if (statuses.length) {
     const upsert = statusUpsertRows(statuses);
