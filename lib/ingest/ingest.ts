@@ -17,8 +17,7 @@ import { storeAllNewGrouped } from './store-fast';
  * the readings, fold them into the chart rollups and update the node's status in ONE
  * transaction (sent as one packet when every reading is new, together with the other posts
  * that arrived meanwhile; the careful path sorts out duplicates) → only after the commit
- * returned, answer 200. Storage down or uncertain → 503
- * with Retry-After; nothing half stored.
+ * returned, answer 200. Storage down or uncertain → 503 with Retry-After; nothing half stored.
  */
 export interface IngestReply {
   accepted: number;

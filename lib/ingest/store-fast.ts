@@ -17,8 +17,6 @@ const format = (sql: string, values: unknown[]) => mysql.format(sql, values as P
 
 const OPTIONAL = [['vp', 'vp'], ['temp', 'temp_c'], ['rssi', 'rssi_dbm'], ['seq', 'seq']] as const;
 
-const num = sqlNumber;
-
 /**
  * The readings' multi-row INSERT, written directly: every value is a validated finite number
  * (checked again here) or a time in our own fixed 'YYYY-MM-DD hh:mm:ss.mmm' form, so no
@@ -34,10 +32,10 @@ export function readingsInsertFor(posts: { nodeId: number; readings: NormalizedR
   const present = OPTIONAL.filter(([key]) => posts.some((p) => p.readings.some((r) => r[key] !== null)));
   const values: string[] = [];
   for (const { nodeId, readings } of posts) {
-    const node = num(nodeId);
+    const node = sqlNumber(nodeId);
     for (const r of readings) {
-      let row = `(${node}, '${sqlUtc(r.t.getTime())}', ${num(r.v)}`;
-      for (const [key] of present) row += r[key] === null ? ', NULL' : `, ${num(r[key] as number)}`;
+      let row = `(${node}, '${sqlUtc(r.t.getTime())}', ${sqlNumber(r.v)}`;
+      for (const [key] of present) row += r[key] === null ? ', NULL' : `, ${sqlNumber(r[key] as number)}`;
       values.push(row + ')');
     }
   }

@@ -1,6 +1,8 @@
 import { spawn } from 'node:child_process';
 import autocannon from 'autocannon';
+import type { Knex } from 'knex';
 import mysql from 'mysql2/promise';
+import type { NormalizedReading } from '@/lib/ingest/normalize';
 import { withPeakRss } from './measure';
 
 interface DbConn { socketPath: string; user: string; password: string; database: string }
@@ -96,61 +98,71 @@ export async function bareServerRequestsPerSecond(seconds: number): Promise<numb
 }
 
 /**
- * A ceiling for the single-reading run: the ingest's own database work for one reading a post
- * (the grouped credential query and the grouped transaction, through lib/ingest itself) from 32
- * callers at once inside the bench process, with no HTTP and no energy model (a fixed status).
- * However lean the route, posts per second cannot pass this on the same machine.
+ * A post's database work without HTTP: the device check and the grouped store of readings
+ * already validated, through lib/ingest itself, with a fixed status in place of the energy
+ * model. `close` ends the pools it opened in the bench process.
  */
-export async function databaseWorkReadingsPerSecond(tokens: string[], seconds: number, startMs: number) {
+async function ingestWithoutHttp() {
   const { authenticateDevice } = await import('@/lib/ingest/device-auth');
   const { storeAllNewGrouped } = await import('@/lib/ingest/store-fast');
+  return {
+    async store(token: string, readings: NormalizedReading[]): Promise<boolean> {
+      const device = await authenticateDevice({ headers: { get: (name) => (name === 'authorization' ? `Bearer ${token}` : null) }, body: null });
+      const status = { ...FIXED_STATUS, last_reading_at: readings[readings.length - 1].t, evaluated_at: new Date() };
+      return storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings, status });
+    },
+    async close() {
+      await (await import('@/lib/db/fast-pool')).closeFastPool();
+      await (await import('@/lib/db/knex')).closeDb();
+    },
+  };
+}
+
+const reading = (t: Date, v: number): NormalizedReading => ({ t, v, vp: null, temp: null, rssi: null, seq: null });
+
+/**
+ * A ceiling for the single-reading run: the same posts' database work alone (see
+ * ingestWithoutHttp) from 32 callers at once inside the bench process. However lean the
+ * route, posts per second cannot pass this on the same machine.
+ */
+export async function databaseWorkReadingsPerSecond(tokens: string[], seconds: number, startMs: number) {
+  const ingest = await ingestWithoutHttp();
   let counter = 0;
   let stored = 0;
-  const until = performance.now() + seconds * 1000;
   const t0 = performance.now();
+  const until = t0 + seconds * 1000;
   await Promise.all(Array.from({ length: 32 }, async () => {
     while (performance.now() < until) {
       const n = counter++;
-      const token = tokens[n % tokens.length];
       const t = new Date(startMs + Math.floor(n / tokens.length) * 60_000);
-      const device = await authenticateDevice({ headers: { get: (name) => (name === 'authorization' ? `Bearer ${token}` : null) }, body: null });
-      const status = { ...FIXED_STATUS, last_reading_at: t, evaluated_at: new Date() };
-      if (await storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings: [{ t, v: 4.6, vp: null, temp: null, rssi: null, seq: null }], status })) stored++;
+      if (await ingest.store(tokens[n % tokens.length], [reading(t, 4.6)])) stored++;
     }
   }));
   const perSecond = stored / ((performance.now() - t0) / 1000);
-  await (await import('@/lib/db/fast-pool')).closeFastPool();
-  await (await import('@/lib/db/knex')).closeDb();
+  await ingest.close();
   return perSecond;
 }
 
 /**
- * The same for the batch run: 8 callers storing the same 500-reading posts (already validated
- * readings, a fixed status) through lib/ingest, with no HTTP and no JSON: what the database
- * side of ingest reaches on this machine, to set beside the raw insert.
+ * The same for the batch run: 8 callers storing the same 500-reading posts, with no HTTP and
+ * no JSON: what the database side of ingest reaches on this machine, beside the raw insert.
  */
 export async function databaseWorkBatchRowsPerSecond(tokens: string[], totalRows: number, startMs: number) {
-  const { authenticateDevice } = await import('@/lib/ingest/device-auth');
-  const { storeAllNewGrouped } = await import('@/lib/ingest/store-fast');
+  const ingest = await ingestWithoutHttp();
   const posts = Array.from({ length: Math.ceil(totalRows / BATCH) }, (_, p) => {
     const base = startMs + Math.floor(p / tokens.length) * BATCH * 60_000;
-    const readings = Array.from({ length: BATCH }, (_, i) => ({ t: new Date(base + i * 60_000), v: 4.5 + (i % 50) / 100, vp: null, temp: null, rssi: null, seq: null }));
-    return { token: tokens[p % tokens.length], readings };
+    return { token: tokens[p % tokens.length], readings: Array.from({ length: BATCH }, (_, i) => reading(new Date(base + i * 60_000), 4.5 + (i % 50) / 100)) };
   });
   let next = 0;
   let stored = 0;
   const t0 = performance.now();
   await Promise.all(Array.from({ length: CLIENTS }, async () => {
     for (let p = next++; p < posts.length; p = next++) {
-      const { token, readings } = posts[p];
-      const device = await authenticateDevice({ headers: { get: (name) => (name === 'authorization' ? `Bearer ${token}` : null) }, body: null });
-      const status = { ...FIXED_STATUS, last_reading_at: readings[readings.length - 1].t, evaluated_at: new Date() };
-      if (await storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings, status })) stored += readings.length;
+      if (await ingest.store(posts[p].token, posts[p].readings)) stored += posts[p].readings.length;
     }
   }));
   const perSecond = stored / ((performance.now() - t0) / 1000);
-  await (await import('@/lib/db/fast-pool')).closeFastPool();
-  await (await import('@/lib/db/knex')).closeDb();
+  await ingest.close();
   return perSecond;
 }
 
@@ -160,12 +172,12 @@ const FIXED_STATUS = {
 } as const;
 
 /** The energy model's evaluation of one reading (the status every post updates), on one core. */
-export async function modelMicrosecondsPerReading(knex: { (table: string): { first(): Promise<Record<string, unknown>>; where(w: object): { first(): Promise<Record<string, unknown>> } } }) {
+export async function modelMicrosecondsPerReading(knex: Knex) {
   const { deriveNodeStatus } = await import('@/lib/status/derive-status');
   const { modelSpecFromRows } = await import('@/lib/status/node-spec');
   const node = await knex('nodes').first();
   const site = await knex('sites').where({ id: node.site_id }).first();
-  const spec = modelSpecFromRows(node as never, site as never);
+  const spec = modelSpecFromRows(node, site);
   const run = (n: number) => {
     const t0 = performance.now();
     for (let i = 0; i < n; i++) {

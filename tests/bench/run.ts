@@ -66,7 +66,7 @@ async function main() {
       const dbOnly = await databaseWorkReadingsPerSecond(fleet.tokens, 10, Date.now() - 150 * day);
       rows.push({ what: '… its database work alone, 32 callers, no HTTP, no model (readings/s)', figure: dbOnly.toFixed(0), baseline: `bare Node HTTP fixed reply ${bare.toFixed(0)}/s`,
         ratio: pct(dbOnly / bare), target: 'ceiling (informative)', ok: null, tool: 'lib/ingest in the bench process' });
-      const modelUs = await modelMicrosecondsPerReading(root as never);
+      const modelUs = await modelMicrosecondsPerReading(root);
       rows.push({ what: '… the energy model for one reading (µs, one core)', figure: modelUs.toFixed(0), baseline: `${((0.4 * bare * modelUs) / 1e6).toFixed(2)} cores at 40 % of bare`,
         ratio: '—', target: 'informative', ok: null, tool: 'deriveNodeStatus in a loop' });
       singlePeakMb = single.peakMb;
