@@ -70,6 +70,7 @@ export function binPath(root: string, name: string): string {
  */
 export function appProcessEnv(env: Record<string, string>, port: number): Record<string, string> {
   const heap = Number(process.env.APP_HEAP_MB ?? 320);
-  const nodeOptions = [process.env.NODE_OPTIONS, `--max-old-space-size=${heap}`].filter(Boolean).join(' ');
+  const semi = Number(process.env.APP_SEMI_SPACE_MB ?? 16);
+  const nodeOptions = [process.env.NODE_OPTIONS, `--max-old-space-size=${heap}`, `--max-semi-space-size=${semi}`].filter(Boolean).join(' ');
   return { ...env, NODE_ENV: 'production', PORT: String(port), NODE_OPTIONS: nodeOptions };
 }

@@ -6,7 +6,7 @@ import { deriveNodeStatus } from '../status/derive-status';
 import { calibratedVolts, modelSpecFromRows } from '../status/node-spec';
 import { parseIngestBody, type IngestRequest } from './body';
 import { authenticateDevice, type DeviceContext } from './device-auth';
-import type { NormalizedReading } from './normalize';
+import { distinctTimes, type NormalizedReading } from './normalize';
 import { takeToken } from './rate-limit';
 import { statusUpsert } from './status-upsert';
 import { storeAllNewGrouped } from './store-fast';
@@ -39,8 +39,7 @@ export async function ingestReply(request: IngestRequest): Promise<IngestReply> 
   if (!limit.ok) throw problems.tooMany(limit.retryAfterSeconds);
   const readings = await parseIngestBody(request, receivedAt);
   let reply = { state: device.state ?? 'new', next_report_s: device.nextReportSeconds ?? device.node.interval_seconds };
-  const unique = new Map(readings.map((r) => [r.t.getTime(), r]));
-  if (unique.size === readings.length && readings.length <= 500) {
+  if (readings.length <= 500 && distinctTimes(readings)) {
     const status = statusAfter(device, readings, receivedAt);
     if (await storage(() => storeAllNewGrouped({ nodeId: device.nodeId, orgId: device.orgId, readings, status }))) {
       if (status) reply = { state: status.state, next_report_s: status.next_report_s ?? device.node.interval_seconds };

@@ -34,3 +34,10 @@ export function normalizeReading(raw: unknown, pointer: string, receivedAt: Date
   }
   return { reading: { t, v: r.v, seq: r.seq ?? null, vp: r.vp ?? null, temp: r.temp ?? null, rssi: r.rssi ?? null }, problems: [] };
 }
+
+/** No two readings share a time (a backlog usually comes in time order, checked first). */
+export function distinctTimes(readings: NormalizedReading[]): boolean {
+  let ascending = true;
+  for (let i = 1; i < readings.length && ascending; i++) ascending = readings[i].t.getTime() > readings[i - 1].t.getTime();
+  return ascending || new Set(readings.map((r) => r.t.getTime())).size === readings.length;
+}

@@ -1,20 +1,16 @@
-import mysql from 'mysql2/promise';
 import { fastPool } from '../db/fast-pool';
 import { rollupDeltaSql } from '../db/queries/rollups';
 import { sqlNumber, sqlUtc } from '../db/sql-time';
 import type { DerivedStatus } from '../status/derive-status';
 import type { NormalizedReading } from './normalize';
 import { Coalescer } from './coalesce';
-import { statusUpsertRows } from './status-upsert';
+import { statusUpsertSql } from './status-upsert';
 
 /**
  * The optimistic path of a post whose readings are all new (the usual case): readings,
  * rollup deltas and the node status in one transaction sent as one packet. A duplicate key
  * rolls the whole packet back and answers `false`: the caller then takes the careful path.
  */
-// Dates are written as UTC, as everywhere else in the schema.
-const format = (sql: string, values: unknown[]) => mysql.format(sql, values as Parameters<typeof mysql.format>[1], false, 'Z');
-
 const OPTIONAL = [['vp', 'vp'], ['temp', 'temp_c'], ['rssi', 'rssi_dbm'], ['seq', 'seq']] as const;
 
 /**
@@ -84,10 +80,7 @@ async function commitPacket(posts: NewPost[]): Promise<void> {
   const rollup = rollupDeltaSql(posts);
   if (rollup) parts.push(rollup);
   const statuses = posts.flatMap((p) => (p.status ? [{ nodeId: p.nodeId, orgId: p.orgId, status: p.status }] : []));
-  if (statuses.length) {
-    const upsert = statusUpsertRows(statuses);
-    parts.push(format(upsert.sql, upsert.bindings));
-  }
+  if (statuses.length) parts.push(statusUpsertSql(statuses));
   parts.push('COMMIT');
   const conn = await fastPool().getConnection();
   try {

@@ -17,8 +17,10 @@ const trustProxy = process.env.TRUST_PROXY === '1';
 
 // Next and the routes are loaded in the serving process only, so a supervisor stays small.
 async function startServer() {
-  const { default: next } = await import('next');
+  // The ingest route first: it keeps the Date constructor from before Next wraps it (see
+  // lib/ingest/fast-reading.ts).
   const { isFastRoute, serveFastRoute } = await import('./fast-routes');
+  const { default: next } = await import('next');
   const app = next({ dev: false, hostname: host, port, dir: process.cwd() });
   const handle = app.getRequestHandler();
 

@@ -2,22 +2,33 @@ import { execSync } from 'node:child_process';
 import { readFileSync, writeFileSync } from 'node:fs';
 
 /**
- * Resident memory (MB) of the app server of this run: the node processes running serve.ts
- * with PORT = APP_URL's port (so another stack on the machine is not counted), summed over
- * its workers when APP_WORKERS > 1; the tsx launcher in front of them is not counted.
+ * The app server processes of this run: node processes running serve.ts with PORT = APP_URL's
+ * port (so another stack on the machine is not counted), its workers when APP_WORKERS > 1;
+ * the tsx launcher in front of them is not counted.
  */
-export function appRssMb(port = Number(new URL(process.env.APP_URL ?? 'http://127.0.0.1:3000').port)): number {
+export function appPids(port = Number(new URL(process.env.APP_URL ?? 'http://127.0.0.1:3000').port)): string[] {
   let pids: string[] = [];
   try {
     pids = execSync('pgrep -f "lib/server/serve.ts"', { encoding: 'utf8' }).trim().split('\n').filter(Boolean);
   } catch {
-    return NaN;
+    return [];
   }
+  return pids.filter((pid) => {
+    try {
+      const environ = readFileSync(`/proc/${pid}/environ`, 'utf8').split('\0');
+      return environ.includes(`PORT=${port}`) && !readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('.bin/tsx');
+    } catch {
+      return false; // process gone
+    }
+  });
+}
+
+/** Resident memory (MB) of the app server of this run, summed over its processes. */
+export function appRssMb(pids = appPids()): number {
+  if (!pids.length) return NaN;
   let total = 0;
   for (const pid of pids) {
     try {
-      const environ = readFileSync(`/proc/${pid}/environ`, 'utf8').split('\0');
-      if (!environ.includes(`PORT=${port}`) || readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('.bin/tsx')) continue;
       const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
       if (m) total += Number(m[1]) / 1024;
     } catch {
@@ -40,9 +51,11 @@ export async function timed<T>(fn: () => Promise<T>): Promise<{ ms: number; valu
 
 /** Samples the app's memory every 250 ms while `work` runs; returns the peak. */
 export async function withPeakRss<T>(work: () => Promise<T>): Promise<{ value: T; peakMb: number; startMb: number }> {
-  const startMb = appRssMb();
+  // The processes are looked up once: a pgrep every 250 ms would take CPU from the run it measures.
+  const pids = appPids();
+  const startMb = appRssMb(pids);
   let peakMb = startMb;
-  const timer = setInterval(() => { peakMb = Math.max(peakMb, appRssMb()); }, 250);
+  const timer = setInterval(() => { peakMb = Math.max(peakMb, appRssMb(pids)); }, 250);
   try {
     return { value: await work(), peakMb, startMb };
   } finally {
