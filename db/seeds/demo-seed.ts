@@ -5,8 +5,9 @@ import type { Knex } from 'knex';
 import { signDeviceToken, newCredentialId } from '../../lib/auth/device-token';
 import { deriveNodeStatus } from '../../lib/status/derive-status';
 import { calibratedVolts, modelSpecFromRows, type NodeRow, type SiteRow } from '../../lib/status/node-spec';
+import { demoModelRow, productMarginOf } from './demo-status';
 import {
-  demoNodes, demoOrganizations, demoSites, generateDemoHistory, secondDemoNodes, secondDemoSites, type DemoNode,
+  chosenCadences, demoNodes, demoOrganizations, demoSites, generateDemoHistory, secondDemoNodes, secondDemoSites, type DemoNode,
 } from '../../simulator/fleet/demo-fleet';
 import { loadSecrets, type Profile } from '../lifecycle/profile';
 import { rootKnex } from '../lifecycle/stack';
@@ -25,7 +26,6 @@ export const DEMO_USERS = [
   { email: 'owner@cinderflats.example', name: 'Di Demo-Owner', org: 'cinder-flats', role: 'owner' },
 ] as const;
 const HISTORY_SEED = 1; // the seed the demo fleet was tuned with (simulator/fleet)
-const RECHARGE_ELEVATION_DEG = 3; // a small panel gives net charge a little after sunrise
 
 export async function seedDemoIfEmpty(profile: Profile, now = new Date()): Promise<void> {
   const knex = rootKnex(profile);
@@ -36,7 +36,7 @@ export async function seedDemoIfEmpty(profile: Profile, now = new Date()): Promi
       return;
     }
     console.log('[seed] generating 14 days of demo history from the simulator physics…');
-    const history = generateDemoHistory({ now, days: 14, seed: HISTORY_SEED });
+    const history = generateDemoHistory({ now, days: 14, seed: HISTORY_SEED, marginOf: productMarginOf });
     const tokens: Record<string, string> = {};
     const slugs: Record<string, string> = {};
     await knex.transaction(async (trx) => {
@@ -44,9 +44,10 @@ export async function seedDemoIfEmpty(profile: Profile, now = new Date()): Promi
       await insertUsers(trx, orgIds);
       const siteIds = await insertSites(trx, orgIds);
       const secret = loadSecrets(profile).deviceTokenSecret;
-      for (const demo of [...demoNodes, ...secondDemoNodes]) {
+      for (const listed of [...demoNodes, ...secondDemoNodes]) {
+        // The node as this run configured it (a tuned cadence, see DemoNode.cadenceFor).
+        const { demo, readings } = history[listed.slug];
         const nodeId = await insertNode(trx, demo, orgIds, siteIds);
-        const readings = history[demo.slug]?.readings ?? [];
         await insertReadings(trx, nodeId, readings);
         await rebuildRollups(trx, nodeId);
         await writeStatus(trx, nodeId, now);
@@ -58,7 +59,7 @@ export async function seedDemoIfEmpty(profile: Profile, now = new Date()): Promi
     });
     mkdirSync(profile.dataDir, { recursive: true });
     writeFileSync(path.join(profile.dataDir, 'device-tokens.json'), JSON.stringify(tokens, null, 2), { mode: 0o600 });
-    writeFileSync(path.join(profile.dataDir, 'demo-fleet.json'), JSON.stringify({ now: now.toISOString(), seed: HISTORY_SEED, slugs }, null, 2));
+    writeFileSync(path.join(profile.dataDir, 'demo-fleet.json'), JSON.stringify({ now: now.toISOString(), seed: HISTORY_SEED, cadences: chosenCadences(history), slugs }, null, 2));
     console.log(`[seed] done: ${Object.keys(tokens).length} nodes; device tokens in ${path.join(profile.dataDir, 'device-tokens.json')}`);
   } finally {
     await knex.destroy();
@@ -84,23 +85,16 @@ async function insertSites(trx: Knex.Transaction, orgIds: Record<string, number>
   for (const s of [...demoSites, ...secondDemoSites]) {
     [ids[s.slug]] = await trx('sites').insert({
       org_id: orgIds[s.organizationSlug], name: s.name, lat: s.latDeg, lon: s.lonDeg, time_zone: s.timeZone,
-      recharge_elevation_deg: RECHARGE_ELEVATION_DEG, notes: s.description,
+      recharge_elevation_deg: s.rechargeElevationDeg, notes: s.description,
     });
   }
   return ids;
 }
 
 async function insertNode(trx: Knex.Transaction, demo: DemoNode, orgIds: Record<string, number>, siteIds: Record<string, number>): Promise<number> {
-  const { bank, converter, load, panel, calibration } = demo.config;
   const [id] = await trx('nodes').insert({
     org_id: orgIds[demo.organizationSlug], site_id: siteIds[demo.siteSlug], name: demo.name, purpose: demo.kind,
-    cells_series: bank.cellsSeries, cells_parallel: bank.cellsParallel, cell_farads: bank.cellFarads, cell_rated_volts: bank.cellRatedVolts,
-    cell_esr_ohms: bank.cellEsrOhms, cell_leakage_amps: bank.cellLeakageAmps,
-    start_volts: converter.startVolts, cutoff_volts: converter.cutoffVolts, output_volts: converter.outputVolts,
-    efficiency: JSON.stringify(converter.efficiency), input_limit_amps: converter.inputLimitAmps,
-    sleep_amps: load.sleepAmps, awake_seconds: load.awakeSeconds, awake_amps: load.awakeAmps, burst_seconds: load.burstSeconds,
-    burst_amps: load.burstAmps, interval_seconds: load.intervalSeconds, max_interval_seconds: load.maxIntervalSeconds,
-    cal_gain: calibration.gain, cal_offset_volts: calibration.offsetVolts, panel_watts: panel.ratedWatts,
+    ...demoModelRow(demo), panel_watts: demo.config.panel.ratedWatts,
   });
   return id;
 }

@@ -36,6 +36,10 @@ export interface SiteRow {
   recharge_elevation_deg: number;
 }
 
+/** The columns the model reads (what a node row holds besides its identity). */
+export type NodeModelRow = Omit<NodeRow, 'id' | 'org_id' | 'site_id' | 'name'>;
+export type SiteModelRow = Pick<SiteRow, 'lat' | 'lon' | 'recharge_elevation_deg'>;
+
 export interface NodeModelSpec {
   bank: BankSpec;
   converter: ConverterSpec;
@@ -50,7 +54,7 @@ function parseEfficiency(value: unknown): ConverterSpec['efficiency'] {
   throw new Error('efficiency must be a number or a table');
 }
 
-export function modelSpecFromRows(node: NodeRow, site: SiteRow): NodeModelSpec {
+export function modelSpecFromRows(node: NodeModelRow, site: SiteModelRow): NodeModelSpec {
   return {
     bank: {
       cellsSeries: node.cells_series,

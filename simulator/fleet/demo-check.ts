@@ -1,14 +1,16 @@
 import { createBankPhysics, getStoredJoules } from '../physics/bank';
 import { findBurstFloorVolts } from '../physics/burst';
 import { getEfficiency } from '../physics/converter';
-import { getNextSunrise } from '../physics/sun';
+import { getNextRisingThrough } from '../physics/sun';
 import { DEFAULT_FAULTS, type SimNodeSpec, type SimReading } from '../physics/types';
 import type { DemoNodeState } from './demo-nodes';
 
 // The simulator's own reading of a node's state at "now", from its readings and its nominal
 // configuration — a stand-in for the product's energy model, used to tune and test the demo.
 
-const RECHARGE_AFTER_SUNRISE_SECONDS = 3600; // low winter sun gives little before then (assumption)
+
+/** Sun centre 0.833° below the horizon: sunrise as almanacs give it (common practice). */
+const STANDARD_SUNRISE_DEG = -0.833;
 
 export interface DemoStateEstimate {
   state: DemoNodeState;
@@ -39,9 +41,12 @@ export function estimateDemoState({ spec, readings, now }: { spec: SimNodeSpec; 
     const state = lastVolts <= floorVolts + 0.15 ? 'dark' : 'silent';
     return { state, margin: null, floorVolts, lastVolts, rechargeAt: null };
   }
-  const sunrise = getNextSunrise({ from: now, latDeg: spec.site.latDeg, lonDeg: spec.site.lonDeg });
-  const rechargeAt = sunrise ? new Date(sunrise.getTime() + RECHARGE_AFTER_SUNRISE_SECONDS * 1000) : null;
-  const seconds = rechargeAt ? (rechargeAt.getTime() - now.getTime()) / 1000 : 0;
+  // As the product reckons it: from the last reading's time to the sun rising through the
+  // site's recharge elevation (the product's default, standard sunrise, where none is set).
+  const rechargeAt = getNextRisingThrough({
+    from: last.t, latDeg: spec.site.latDeg, lonDeg: spec.site.lonDeg, elevationDeg: spec.site.rechargeElevationDeg ?? STANDARD_SUNRISE_DEG,
+  });
+  const seconds = rechargeAt ? (rechargeAt.getTime() - last.t.getTime()) / 1000 : 0;
   const reserve = Math.max(0, getStoredJoules({ farads: bank.farads, volts: lastVolts }) - getStoredJoules({ farads: bank.farads, volts: floorVolts }));
   // Efficiency falls as the bank does: take the draw at the midpoint between now and the floor.
   const need = getMeanBankWatts({ spec, volts: (lastVolts + floorVolts) / 2 }) * seconds;

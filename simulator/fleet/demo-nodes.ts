@@ -40,6 +40,12 @@ export interface DemoNode {
   };
   hidden: DemoHiddenFaults;
   rssiDbm: number;
+  /**
+   * The demo's story must hold whatever hour it is seeded, but a night margin changes with the
+   * hours left to sunrise. A node marked here gets its configured report interval chosen at
+   * seed time (the deployer's cadence) so its margin at "now" sits inside this state's band.
+   */
+  cadenceFor?: 'thin' | 'short';
 }
 
 const LARKSPUR = 'larkspur-hollow';
@@ -75,7 +81,7 @@ export const demoNodes: DemoNode[] = [
     config: { bank: makeBank({ cell: CELL_50F }) } }),
   node({ slug: 'mp-stage-2', name: 'MP-stage-2', siteSlug: 'mill-pond-outlet', kind: 'stream-level', intendedState: 'thin',
     story: 'Panel under conifers and caked with dirt: the bank never fills in December.', rssiDbm: -75,
-    hidden: { shadingFactor: 0.22, dirtFactor: 0.4 },
+    hidden: { shadingFactor: 0.22, dirtFactor: 0.4 }, cadenceFor: 'thin',
     config: { bank: makeBank({ cell: CELL_50F }) } }),
   node({ slug: 'um-piezo-1', name: 'UM-piezo-1', siteSlug: 'upper-meadow-piezometer', kind: 'groundwater-level', intendedState: 'short',
     story: 'Firmware stuck awake since midday (a sensor time-out loop): the bank is sinking fast.', rssiDbm: -66,
@@ -89,10 +95,10 @@ export const demoNodes: DemoNode[] = [
     story: 'Just configured; no reading has arrived yet.', rssiDbm: -69, hidden: { neverReported: true },
     config: { bank: makeBank({ cell: CELL_100F }) } }),
   node({ slug: 'qr-culvert-1', name: 'QR-culvert-1', siteSlug: 'quarry-road-culvert', kind: 'stream-level', intendedState: 'short',
-    story: 'Undersized bank at a fast cadence: browns out most December nights.', rssiDbm: -63, hidden: {},
+    story: 'Undersized bank at a fast cadence: browns out most December nights.', rssiDbm: -63, hidden: {}, cadenceFor: 'short',
     config: { bank: makeBank({ cell: CELL_25F }), load: makeLoad({ intervalSeconds: 360 }) } }),
   node({ slug: 'qr-culvert-2', name: 'QR-culvert-2', siteSlug: 'quarry-road-culvert', kind: 'stream-level', intendedState: 'thin',
-    story: 'Small but healthy bank: makes the night with little to spare.', rssiDbm: -67, hidden: {},
+    story: 'Small but healthy bank: makes the night with little to spare.', rssiDbm: -67, hidden: {}, cadenceFor: 'thin',
     config: { bank: makeBank({ cell: CELL_25F }), load: makeLoad({ intervalSeconds: 600 }) } }),
   node({ slug: 'qr-soil-1', name: 'QR-soil-1', siteSlug: 'quarry-road-culvert', kind: 'soil-moisture', intendedState: 'silent',
     story: 'Healthy bank, but its antenna cable was knocked loose yesterday: it runs and sends, nothing arrives.', rssiDbm: -80,

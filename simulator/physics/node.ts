@@ -3,7 +3,7 @@ import { runReportCycle } from './burst';
 import { getEfficiency } from './converter';
 import { createRandom, hashSeed } from './prng';
 import { makeSimReading } from './reading';
-import { getClearSkyIrradiance, getSunElevationRadians } from './sun';
+import { getClearSkyIrradiance, getRefractionDegrees, getSunElevationRadians } from './sun';
 import { DEFAULT_FAULTS, type SimFaults, type SimNodeSpec, type SimNodeState, type SimReading } from './types';
 import { createWeather, type Weather } from './weather';
 
@@ -75,8 +75,10 @@ export class SimNode {
   getPanelIrradiance(at: Date): number {
     const lost = this.faults.panelLostFrom && at >= this.faults.panelLostFrom;
     if (this.noSun || lost) return 0;
-    const { latDeg, lonDeg } = this.spec.site;
-    const clear = getClearSkyIrradiance({ elevationRadians: getSunElevationRadians({ at, latDeg, lonDeg }) });
+    const { latDeg, lonDeg, horizonDeg = 0 } = this.spec.site;
+    const elevationRadians = getSunElevationRadians({ at, latDeg, lonDeg });
+    if (horizonDeg > 0 && elevationRadians < ((horizonDeg + getRefractionDegrees(horizonDeg)) * Math.PI) / 180) return 0;
+    const clear = getClearSkyIrradiance({ elevationRadians });
     if (clear === 0) return 0;
     return clear * this.weather.getCloudFactor(at) * this.faults.shadingFactor * this.faults.dirtFactor;
   }

@@ -35,3 +35,31 @@ export function getNextSunrise({ from, latDeg, lonDeg }: { from: Date; latDeg: n
   }
   return null;
 }
+
+/**
+ * Atmospheric refraction for a true altitude, in degrees: Sæmundsson's formula,
+ * R = 1.02′ / tan(h + 10.3 / (h + 5.11)) with h in degrees (Meeus, Astronomical Algorithms,
+ * 2nd ed., eq. 16.4), for standard pressure and temperature.
+ */
+export function getRefractionDegrees(trueAltitudeDeg: number): number {
+  const h = Math.max(trueAltitudeDeg, -1);
+  return 1.02 / Math.tan(((h + 10.3 / (h + 5.11)) * Math.PI) / 180) / 60;
+}
+
+/**
+ * First minute after `from` at which the sun, rising, reaches the true elevation
+ * `elevationDeg` (compared as apparent elevation, which is what suncalc returns), or null
+ * within two days (polar night). A one-minute scan: the demo's tuning needs no finer time
+ * than its one-minute physics step.
+ */
+export function getNextRisingThrough({ from, latDeg, lonDeg, elevationDeg }: { from: Date; latDeg: number; lonDeg: number; elevationDeg: number }): Date | null {
+  const target = ((elevationDeg + getRefractionDegrees(elevationDeg)) * Math.PI) / 180;
+  let below = getSunElevationRadians({ at: from, latDeg, lonDeg }) < target;
+  for (let ms = from.getTime() + 60_000; ms <= from.getTime() + 2 * 86_400_000; ms += 60_000) {
+    const at = new Date(ms);
+    const nowBelow = getSunElevationRadians({ at, latDeg, lonDeg }) < target;
+    if (below && !nowBelow) return at;
+    below = nowBelow;
+  }
+  return null;
+}

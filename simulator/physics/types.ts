@@ -7,6 +7,10 @@ export interface SimSite {
   /** Mean air temperature over a day, °C, and half the day-night swing. */
   meanTempC?: number;
   tempSwingC?: number;
+  /** Terrain horizon, degrees of true elevation: below it the panel gets no sun (a ridge or a road cut). */
+  horizonDeg?: number;
+  /** The owner's setting for when charge starts (the product's site field), for the simulator's own margin reckoning. */
+  rechargeElevationDeg?: number;
 }
 
 export interface SimBank {

@@ -5,9 +5,10 @@ import type { FleetNode } from './fleet';
 import { readProgress } from './progress';
 
 // The demo fleet as the seed left it: the same physics, rebuilt from the seed's `now` and
-// seed number (generateDemoHistory is deterministic), so the live run continues each story.
+// seed number and the cadences the seed chose (generateDemoHistory is deterministic), so the
+// live run continues each story.
 
-export interface DemoFleetFile { now: string; seed: number; slugs: Record<string, string> }
+export interface DemoFleetFile { now: string; seed: number; cadences?: Record<string, number>; slugs: Record<string, string> }
 
 export function readJsonFile<T>(file: string): T {
   try {
@@ -24,7 +25,7 @@ export function loadDemoFleet({ dataDir, only, progressFile }: { dataDir: string
   const tokens = readJsonFile<Record<string, string>>(path.join(dataDir, 'device-tokens.json'));
   const fleetNow = new Date(fleet.now);
   if (Number.isNaN(fleetNow.getTime())) throw new Error(`demo-fleet.json: "now" is not a time: ${fleet.now}`);
-  const history = generateDemoHistory({ now: fleetNow, seed: fleet.seed });
+  const history = generateDemoHistory({ now: fleetNow, seed: fleet.seed, cadences: fleet.cadences ?? {} });
   const done = progressFile ? readProgress({ file: progressFile, fleetNow: fleet.now }) : {};
   const nodes: FleetNode[] = [];
   const skipped: string[] = [];

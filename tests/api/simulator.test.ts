@@ -25,11 +25,11 @@ const rowsOf = async (nodeIds: (string | number)[], after = new Date(0)) =>
 const key = (nodeId: string, tMs: number) => `${nodeId}@${tMs}`;
 
 describe('the simulator, demo mode', () => {
-  const SLUGS = ['qr-culvert-1', 'nf-soil-1', 'mp-stage-1']; // the shortest cadences of the demo fleet
+  const SLUGS = ['nf-soil-1', 'mp-stage-1', 'nf-stage-1']; // the shortest fixed cadences of the demo fleet
 
   it('rebuilds the seeded physics: the history it regenerates ends where the seed stored it', async () => {
     const file = JSON.parse(readFileSync(path.join(profile.dataDir, 'demo-fleet.json'), 'utf8'));
-    const history = generateDemoHistory({ now: new Date(file.now), seed: file.seed });
+    const history = generateDemoHistory({ now: new Date(file.now), seed: file.seed, cadences: file.cadences });
     const { nodes, fleetNow } = loadDemoFleet({ dataDir: profile.dataDir, only: SLUGS });
     expect(nodes.map((n) => n.label).sort()).toEqual([...SLUGS].sort());
     for (const n of nodes) {
