@@ -44,7 +44,7 @@ describe('GET /api/v1/nodes/{id}/export (readings CSV)', () => {
 
   it('exports a whole demo node: as many lines as stored readings', async () => {
     const viewer = await signedIn('viewer@larkspur.example');
-    const demo = await db()('nodes').where({ name: 'QR-culvert-1' }).first('id');
+    const demo = await db()('nodes').where({ name: 'NF-stage-1' }).first('id'); // a fixed 600 s cadence, never browned out
     const from = Math.floor(Date.now() / 1000) - 30 * 86_400;
     const to = Math.floor(Date.now() / 1000) + 60;
     const [{ n }] = await db()('readings').where('node_id', demo.id).andWhere('t', '>=', new Date(from * 1000)).andWhere('t', '<', new Date(to * 1000)).count({ n: '*' });
