@@ -1,5 +1,6 @@
 import type { InvalidParam } from '../errors';
 import { MAX_AGE_DAYS, MAX_FUTURE_SECONDS, readingSchema } from '../schemas/reading';
+import { rfc3339Ms } from './rfc3339';
 
 /** A validated reading, time resolved to a millisecond instant. */
 export interface NormalizedReading {
@@ -14,7 +15,7 @@ export interface NormalizedReading {
 function parseTime(t: string | number | undefined, receivedAt: Date): Date {
   if (t === undefined) return receivedAt;
   if (typeof t === 'number') return new Date(Math.round(t * 1000));
-  return new Date(t.replace(' ', 'T'));
+  return new Date(rfc3339Ms(t)); // NaN (an invalid Date) when it is not a real time
 }
 
 /** Validates one raw item; problems carry pointers under `pointer` (e.g. /readings/3). */

@@ -26,16 +26,20 @@ export function readingsInsert(nodeId: number, readings: NormalizedReading[]): s
 /** The same for several posts (several nodes) in one statement. */
 export function readingsInsertFor(posts: { nodeId: number; readings: NormalizedReading[] }[]): string {
   const present = OPTIONAL.filter(([key]) => posts.some((p) => p.readings.some((r) => r[key] !== null)));
-  const values: string[] = [];
+  // One string grown row by row (no array of row texts to join): a post's 500 rows are a
+  // third of the text the app writes for it, and this is about half as many allocations.
+  let sql = `INSERT INTO readings (node_id, t, v${present.map(([, column]) => `, ${column}`).join('')}) VALUES `;
+  let first = true;
   for (const { nodeId, readings } of posts) {
     const node = sqlNumber(nodeId);
     for (const r of readings) {
-      let row = `(${node}, '${sqlUtc(r.t.getTime())}', ${sqlNumber(r.v)}`;
-      for (const [key] of present) row += r[key] === null ? ', NULL' : `, ${sqlNumber(r[key] as number)}`;
-      values.push(row + ')');
+      sql += (first ? '(' : ', (') + node + ", '" + sqlUtc(r.t.getTime()) + "', " + sqlNumber(r.v);
+      for (const [key] of present) sql += r[key] === null ? ', NULL' : ', ' + sqlNumber(r[key] as number);
+      sql += ')';
+      first = false;
     }
   }
-  return `INSERT INTO readings (node_id, t, v${present.map(([, column]) => `, ${column}`).join('')}) VALUES ${values.join(', ')}`;
+  return sql;
 }
 
 export interface NewPost { nodeId: number; orgId: number; readings: NormalizedReading[]; status: DerivedStatus | null }

@@ -80,6 +80,16 @@ describe('POST /api/v1/readings (DESIGN.md §5)', () => {
     expect(ahead.body.errors[0].pointer).toBe('/t');
   });
 
+  it('refuses a time that is not on the calendar instead of rolling it over (a broken node clock)', async () => {
+    const year = new Date().getUTCFullYear();
+    // 30 February would otherwise be read as 2 March, and 24:00 as the next midnight.
+    for (const t of [`${year}-02-30T10:00:00Z`, `${year - 1}-12-01T24:00:00Z`]) {
+      const res = await post(node.token, { t, v: 4.8 });
+      isProblem(res, 422);
+      expect(res.body.errors[0]).toEqual({ pointer: '/t', detail: 'Not a real date and time.' });
+    }
+  });
+
   it('answers 400 to malformed JSON and to a body that is not a reading', async () => {
     isProblem(await post(node.token, '{"v": 4.8', 'application/json'), 400);
     isProblem(await post(node.token, '[1,2,3]', 'application/json'), 400);

@@ -47,22 +47,28 @@ type RollupInput = { t: Date; v: number; vp: number | null };
 
 type Bucket = { node: number; bucket: number; start: number; n: number; min: number; max: number; sum: number; last: number; tLast: number; vpMax: number | null };
 
-function deltaRows(posts: { nodeId: number; readings: RollupInput[] }[]): Bucket[] {
+/** The buckets a set of posts touches, with their deltas (exported for tests/unit/series/rollup-deltas.test.ts). */
+export function deltaRows(posts: { nodeId: number; readings: RollupInput[] }[]): Bucket[] {
   // One map per node and bucket size keyed by the bucket's start second (numbers, not
-  // strings: this runs for every reading on the ingest path).
+  // strings: this runs for every reading on the ingest path). A post usually comes in time
+  // order, so the bucket of the reading before is tried first, without a map lookup.
   const byNode = new Map<number, Map<number, Bucket>[]>();
   for (const { nodeId, readings } of posts) {
     let bySize = byNode.get(nodeId);
     if (!bySize) byNode.set(nodeId, (bySize = ROLLUP_BUCKETS_SECONDS.map(() => new Map<number, Bucket>())));
-    for (const r of readings) {
-      const ms = r.t.getTime();
-      for (let k = 0; k < ROLLUP_BUCKETS_SECONDS.length; k++) {
-        const bucket = ROLLUP_BUCKETS_SECONDS[k];
+    for (let k = 0; k < ROLLUP_BUCKETS_SECONDS.length; k++) {
+      const bucket = ROLLUP_BUCKETS_SECONDS[k];
+      const buckets = bySize[k];
+      let b: Bucket | undefined;
+      for (const r of readings) {
+        const ms = r.t.getTime();
         const start = Math.floor(ms / 1000 / bucket) * bucket;
-        let b = bySize[k].get(start);
-        if (!b) {
-          b = { node: nodeId, bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
-          bySize[k].set(start, b);
+        if (b === undefined || b.start !== start) {
+          b = buckets.get(start);
+          if (!b) {
+            b = { node: nodeId, bucket, start, n: 0, min: Infinity, max: -Infinity, sum: 0, last: r.v, tLast: -Infinity, vpMax: null };
+            buckets.set(start, b);
+          }
         }
         b.n++;
         if (r.v < b.min) b.min = r.v;
@@ -105,8 +111,11 @@ export function rollupDeltaStatementFor(posts: { nodeId: number; readings: Rollu
 export function rollupDeltaSql(posts: { nodeId: number; readings: RollupInput[] }[]): string | null {
   const rows = deltaRows(posts);
   if (!rows.length) return null;
-  const values = rows.map((b) => `(${sqlNumber(b.node)}, ${sqlNumber(b.bucket)}, FROM_UNIXTIME(${sqlNumber(b.start)}), ${sqlNumber(b.n)}, `
-    + `${sqlNumber(Math.fround(b.min))}, ${sqlNumber(Math.fround(b.max))}, ${sqlNumber(b.sum)}, ${sqlNumber(b.last)}, '${sqlUtc(b.tLast)}', `
-    + `${b.vpMax === null ? 'NULL' : sqlNumber(Math.fround(b.vpMax))})`);
-  return `${DELTA_INSERT}\n     VALUES ${values.join(', ')}\n     ${DELTA_UPDATE}`;
+  let values = '';
+  for (const b of rows) {
+    values += (values ? ', (' : '(') + sqlNumber(b.node) + ', ' + sqlNumber(b.bucket) + ', FROM_UNIXTIME(' + sqlNumber(b.start) + '), ' + sqlNumber(b.n) + ', '
+      + sqlNumber(Math.fround(b.min)) + ', ' + sqlNumber(Math.fround(b.max)) + ', ' + sqlNumber(b.sum) + ', ' + sqlNumber(b.last) + ", '" + sqlUtc(b.tLast) + "', "
+      + (b.vpMax === null ? 'NULL' : sqlNumber(Math.fround(b.vpMax))) + ')';
+  }
+  return `${DELTA_INSERT}\n     VALUES ${values}\n     ${DELTA_UPDATE}`;
 }
