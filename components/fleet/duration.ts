@@ -14,3 +14,8 @@ export function formatDuration(seconds: number | null | undefined): string {
 export function secondsBetween(from: string, to: string | null): number | null {
   return to ? (Date.parse(to) - Date.parse(from)) / 1000 : null;
 }
+
+/** "in 2 h 05 min" ahead, "2 h 14 min ago" once the instant has passed (a projection no reading has renewed). */
+export function formatUntilOrAgo(seconds: number | null): string {
+  return seconds !== null && seconds < 0 ? `${formatDuration(-seconds)} ago` : `in ${formatDuration(seconds)}`;
+}

@@ -2,7 +2,7 @@ import { StateGlyph } from '@/components/state-glyph';
 import { NODE_STATE_INFO, NODE_STATES, type NodeState } from '@/lib/config/node-states';
 import type { FleetView } from '@/lib/db/queries/fleet';
 import { formatInTimeZone } from '@/lib/format/time';
-import { formatDuration, secondsBetween } from './duration';
+import { formatUntilOrAgo, secondsBetween } from './duration';
 
 /**
  * The answer first: how many nodes in each state (each a toggle of the state filter) and
@@ -40,7 +40,7 @@ export function FleetSummary({ view, state, onState }: { view: FleetView; state:
           <a href={`/nodes/${earliest.node_id}`} className="font-bold text-hazard underline-offset-2 hover:underline">{earliest.name}</a>
           <span className="text-ink-muted"> at </span>
           <time dateTime={earliest.at} className="figures font-bold" suppressHydrationWarning>{formatInTimeZone(new Date(earliest.at), earliest.time_zone)}</time>
-          <span className="text-ink-muted"> (in {formatDuration(secondsBetween(view.generated_at, earliest.at))})</span>
+          <span className="text-ink-muted"> ({formatUntilOrAgo(secondsBetween(view.generated_at, earliest.at))})</span>
         </p>
       ) : (
         <p className="rounded-lg border border-dusk-700 bg-dusk-900 px-4 py-3 text-ink-muted" data-testid="earliest-brownout">

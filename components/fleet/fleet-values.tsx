@@ -1,7 +1,7 @@
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
 import { formatInTimeZone } from '@/lib/format/time';
 import { formatAge, formatJoules, formatMargin, formatPercent, formatWatts, formatWattHours } from '@/lib/format/units';
-import { formatDuration, secondsBetween } from './duration';
+import { formatUntilOrAgo, secondsBetween } from './duration';
 
 /** One node's figures as the table and the cards show them; times in the node's site zone. */
 export function SocValue({ soc }: { soc: number | null }) {
@@ -36,7 +36,7 @@ export function LocalTime({ at, timeZone, now, empty = '—' }: { at: string | n
   return (
     <span className="figures">
       <time dateTime={at} suppressHydrationWarning>{formatInTimeZone(new Date(at), timeZone)}</time>
-      <span className="block text-xs text-ink-muted">{seconds >= 0 ? `in ${formatDuration(seconds)}` : `${formatDuration(-seconds)} ago`}</span>
+      <span className="block text-xs text-ink-muted">{formatUntilOrAgo(seconds)}</span>
     </span>
   );
 }
