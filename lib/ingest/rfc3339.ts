@@ -1,8 +1,8 @@
 /**
  * The instant of a reading's RFC 3339 time ('2026-12-01T21:30:00Z', '2026-12-01 21:30:00.25+02:00'),
  * read digit by digit. Both ingest paths use it (lib/ingest/fast-reading.ts, normalize.ts):
- * on the hot path the pattern test plus Date.parse took about 0.2 µs a reading, most of a
- * 500-reading post's validation.
+ * on the hot path the pattern test plus Date.parse took about 0.1 µs a reading, some 40 % of
+ * the hand check of a 500-reading post (measured in isolation).
  *
  * NaN means "not a real time": the text is not in the form of RFC 3339 §5.6, or a field is out
  * of its calendar range. Date.parse quietly rolls 2026-02-30 over to 2 March and 24:00 to the
