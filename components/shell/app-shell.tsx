@@ -4,11 +4,12 @@ import type { Member } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
 import { NavGlyph } from './nav-glyph';
 import { NAV_ITEMS } from './nav-items';
+import { OrgSwitcher, type OrgChoice } from './org-switcher';
 import { SignOutButton } from './sign-out-button';
 import { ThemeToggle } from './theme-toggle';
 
 /** Desktop: a slim side rail. Phone (390 px): bottom tabs. */
-export function AppShell({ member, children }: { member: Member; children: ReactNode }) {
+export function AppShell({ member, organizations, children }: { member: Member; organizations: OrgChoice[]; children: ReactNode }) {
   const items = NAV_ITEMS.filter((i) => can(member.role, i.permission));
   return (
     <div className="min-h-screen md:pl-20">
@@ -31,7 +32,7 @@ export function AppShell({ member, children }: { member: Member; children: React
       <header className="flex items-center justify-between border-b border-dusk-800 px-4 py-3 md:px-8">
         <div>
           <p className="text-xs uppercase tracking-[0.18em] text-ink-faint">Organization</p>
-          <p className="font-bold" data-testid="org-name">{member.orgName}</p>
+          <OrgSwitcher current={{ id: member.orgId, name: member.orgName, role: member.role }} organizations={organizations} />
         </div>
         <div className="flex items-center gap-3">
         <ThemeToggle />

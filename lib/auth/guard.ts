@@ -24,6 +24,15 @@ export async function requireMember(permission: Permission = 'fleet:read'): Prom
 }
 
 export async function currentMember(): Promise<Member | null> {
+  return (await currentMemberships())?.member ?? null;
+}
+
+/**
+ * The same, with every organization the person belongs to (for the organization switcher).
+ * Which one is shown comes from the dw-org cookie (PUT /api/v1/org/current), honoured only
+ * while the person is still a member there; otherwise their first membership.
+ */
+export async function currentMemberships(): Promise<{ member: Member; organizations: { id: number; name: string; role: Member['role'] }[] } | null> {
   const session = await getServerSession(authOptions());
   const user = session?.user as { id?: string; authAt?: number } | undefined;
   const userId = Number(user?.id);
@@ -36,7 +45,7 @@ export async function currentMember(): Promise<Member | null> {
   if (changedAt && new Date(changedAt).getTime() > (user?.authAt ?? 0)) return null;
   const chosen = Number((await cookies()).get(ORG_COOKIE)?.value);
   const { passwordChangedAt: _changed, ...member } = memberships.find((m) => m.orgId === chosen) ?? memberships[0];
-  return member;
+  return { member, organizations: memberships.map((m) => ({ id: m.orgId, name: m.orgName, role: m.role })) };
 }
 
 /**

@@ -8,10 +8,11 @@ export const emailSchema = z.string().trim().toLowerCase().email('Enter a valid 
 
 export const changeRoleBody = z.object({ role: roleSchema }).strict();
 export const inviteBody = z.object({ email: emailSchema, role: roleSchema }).strict();
+// name and password are needed only when the invitation creates the account (the server says which).
 export const acceptInvitationBody = z.object({
   token: z.string().min(20).max(200),
-  name: z.string().trim().min(1, 'Enter your name.').max(200).regex(/^[^\r\n]*$/, 'Use one line.'),
-  password: passwordSchema,
+  name: z.string().trim().min(1, 'Enter your name.').max(200).regex(/^[^\r\n]*$/, 'Use one line.').optional(),
+  password: passwordSchema.optional(),
 }).strict();
 export const resetRequestBody = z.object({ email: emailSchema }).strict();
 export const resetConfirmBody = z.object({ token: z.string().min(20).max(200), password: passwordSchema }).strict();

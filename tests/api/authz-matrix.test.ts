@@ -42,6 +42,8 @@ const EXPECTED: Record<string, Rule> = {
   'GET /api/v1/nodes': 'viewer',
   'POST /api/v1/nodes': 'deployer',
   'GET /api/v1/openapi.json': 'public',
+  'GET /api/v1/org/current': 'viewer',
+  'PUT /api/v1/org/current': 'viewer',
   'GET /api/v1/org/settings': 'viewer',
   'PUT /api/v1/org/settings': 'owner',
   'POST /api/v1/password-resets/confirm': 'public',

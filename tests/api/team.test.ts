@@ -38,6 +38,15 @@ describe('invitations', () => {
     expect((await accept(token)).status).toBe(404);
   });
 
+  it('need a name and a password when they create the account, and stay usable until then', async () => {
+    const { token } = await invite('no-password@larkspur.example', 'viewer');
+    const res = await api().post('/api/v1/invitations/accept').set('origin', process.env.APP_URL!).send({ token });
+    expect(res.status).toBe(422);
+    expect(res.body.errors).toEqual([{ pointer: '/name', detail: 'Enter your name.' }, { pointer: '/password', detail: 'Choose a password.' }]);
+    expect(await db()('users').where({ email: 'no-password@larkspur.example' }).first('id')).toBeUndefined();
+    expect((await accept(token)).status).toBe(201);
+  });
+
   it('refuse a password under 10 characters, in the server words, by the field', async () => {
     const { token } = await invite('short@larkspur.example', 'viewer');
     const res = await accept(token, 'short');

@@ -48,32 +48,58 @@ export async function createInvitation(opts: { orgId: number; orgName: string; e
     const already = await trx('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.org_id': opts.orgId, 'u.email': email }).first('m.id');
     if (already) throw problems.conflict('That person is already a member.');
     await trx('invitations').insert({ org_id: opts.orgId, email, role: opts.role, token_sha256: sha256, invited_by: opts.byUserId, expires_at: expiresAt });
+    // Someone who already has an account keeps their password: the link only adds the membership.
+    const existing = await trx('users').where({ email }).first('id');
+    const action = existing ? 'Accept it here' : 'Set your password here';
+    const htmlAction = existing ? 'Accept the invitation' : 'Set your password';
+    const after = existing ? ' You keep your present password; the organization then appears in the list at the top of every page.' : '';
     await enqueueMail(trx, {
       orgId: opts.orgId, purpose: 'invitation', to: email,
       subject: `You are invited to ${opts.orgName} on Duskwatch`,
-      text: `You have been invited to join ${opts.orgName} on Duskwatch as ${opts.role}.\n\nSet your password here (the link works once, for ${INVITATION_DAYS} days):\n${link}\n`,
-      html: `<p>You have been invited to join <strong>${escapeHtml(opts.orgName)}</strong> on Duskwatch as ${opts.role}.</p><p><a href="${escapeHtml(link)}">Set your password</a> (the link works once, for ${INVITATION_DAYS} days).</p>`,
+      text: `You have been invited to join ${opts.orgName} on Duskwatch as ${opts.role}.${after}\n\n${action} (the link works once, for ${INVITATION_DAYS} days):\n${link}\n`,
+      html: `<p>You have been invited to join <strong>${escapeHtml(opts.orgName)}</strong> on Duskwatch as ${opts.role}.${after}</p><p><a href="${escapeHtml(link)}">${htmlAction}</a> (the link works once, for ${INVITATION_DAYS} days).</p>`,
     });
     await writeAudit({ orgId: opts.orgId, userId: opts.byUserId, action: 'invitation_created', target: email, detail: { role: opts.role } }, trx);
   });
   return { link, expiresAt };
 }
 
-/** Accepting creates the account (or adds the membership to an existing one) exactly once. */
-export async function acceptInvitation(opts: { token: string; name: string; password: string }) {
-  const hash = await hashPassword(opts.password);
+/** What an invitation link offers, for its page: null when it is used, expired or unknown. */
+export async function describeInvitation(token: string) {
+  const inv = await db()('invitations as i').join('organizations as o', 'o.id', 'i.org_id')
+    .where({ 'i.token_sha256': hashOneTimeToken(token) }).whereNull('i.used_at').andWhere('i.expires_at', '>', new Date())
+    .first('i.email', 'i.role', 'o.name as orgName');
+  if (!inv) return null;
+  const user = await db()('users').where({ email: inv.email }).first('id');
+  return { email: inv.email as string, role: inv.role as Role, orgName: inv.orgName as string, existingAccount: Boolean(user) };
+}
+
+/**
+ * Accepting creates the account (or adds the membership to an existing one) exactly once.
+ * A new account needs a name and a password; an existing one keeps its own, and any name or
+ * password sent with it is not used (the reply says so with `existing_account`).
+ */
+export async function acceptInvitation(opts: { token: string; name?: string; password?: string }) {
+  // Hashed before the row lock is taken (bcrypt takes a noticeable fraction of a second).
+  const hash = opts.password ? await hashPassword(opts.password) : null;
   return db().transaction(async (trx) => {
     const inv = await trx('invitations').where({ token_sha256: hashOneTimeToken(opts.token) }).forUpdate().first();
     if (!inv || inv.used_at || new Date(inv.expires_at) <= new Date()) throw problems.notFound('This invitation link (used, expired or unknown)');
-    let user = await trx('users').where({ email: inv.email }).first('id', 'password_hash');
+    let user = await trx('users').where({ email: inv.email }).first('id');
+    const existingAccount = Boolean(user);
     if (!user) {
+      const missing = [
+        ...(opts.name ? [] : [{ pointer: '/name', detail: 'Enter your name.' }]),
+        ...(hash ? [] : [{ pointer: '/password', detail: 'Choose a password.' }]),
+      ];
+      if (missing.length) throw problems.invalid(missing);
       const [id] = await trx('users').insert({ email: inv.email, name: opts.name, password_hash: hash, password_changed_at: new Date() });
       user = { id };
     }
     await trx('memberships').insert({ org_id: inv.org_id, user_id: user.id, role: inv.role }).onConflict(['org_id', 'user_id']).merge({ role: inv.role });
     await trx('invitations').where({ id: inv.id }).update({ used_at: new Date() });
     await writeAudit({ orgId: inv.org_id, userId: user.id, action: 'invitation_accepted', target: inv.email }, trx);
-    return { email: inv.email as string };
+    return { email: inv.email as string, existingAccount };
   });
 }
 

@@ -3,6 +3,6 @@ import { publicRoute } from '@/lib/http/route';
 import { acceptInvitationBody } from '@/lib/schemas/team';
 
 export const POST = publicRoute({ body: acceptInvitationBody }, async ({ body }) => {
-  const { email } = await acceptInvitation(body);
-  return Response.json({ email }, { status: 201 });
+  const { email, existingAccount } = await acceptInvitation(body);
+  return Response.json({ email, existing_account: existingAccount }, { status: 201 });
 });
