@@ -5,6 +5,7 @@ import type uPlot from 'uplot';
 import UplotReact from 'uplot-react';
 import { useThemeVersion } from './use-theme-version';
 import 'uplot/dist/uPlot.min.css';
+import { bridgeShortGaps } from './gaps';
 import { nightBandsPlugin, refLinesPlugin, timeMarksPlugin, type RefLine } from './night-bands';
 
 /**
@@ -43,6 +44,8 @@ export interface TimeChartProps {
   testId?: string;
   /** Label under the time axis, e.g. "time (America/Los_Angeles)". */
   timeLabel?: string;
+  /** Lines run across empty buckets when the readings either side are at most this far apart (s); longer silences stay breaks. */
+  bridgeGapsSeconds?: number;
 }
 
 const css = (name: string) => (typeof window === 'undefined' ? '#888' : `rgb(${getComputedStyle(document.documentElement).getPropertyValue(name).trim().split(' ').join(',')})`);
@@ -78,7 +81,7 @@ export function TimeChart(props: TimeChartProps) {
     return () => ro.disconnect();
   }, []);
 
-  const { series, axes, nights, refLines, marks, timeZone, height = 260, onZoom, timeLabel } = props;
+  const { series, axes, nights, refLines, marks, timeZone, height = 260, onZoom, timeLabel, bridgeGapsSeconds } = props;
   const themeVersion = useThemeVersion();
   const measured = width > 0; // in the browser, where the CSS variables can be read
   // Axis colours are read again when the theme changes.
@@ -93,7 +96,7 @@ export function TimeChart(props: TimeChartProps) {
       scales: { x: { time: true }, ...Object.fromEntries(axes.filter((a) => a.include?.length).map((a) => [a.scale, { range: includeRange(a.include!) }])) },
       series: [
         { label: 'time' },
-        ...series.map((s) => ({ label: s.label, scale: s.scale, stroke: s.color, width: s.width ?? 1.5, dash: s.dash, fill: s.fill, points: { show: false } })),
+        ...series.map((s) => ({ label: s.label, scale: s.scale, stroke: s.color, width: s.width ?? 1.5, dash: s.dash, fill: s.fill, points: { show: false }, ...(bridgeGapsSeconds ? { gaps: bridgeShortGaps(bridgeGapsSeconds) } : {}) })),
       ],
       axes: [
         { stroke: ink, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid }, ...(timeLabel ? { label: timeLabel, labelSize: 20 } : {}) },
@@ -102,7 +105,7 @@ export function TimeChart(props: TimeChartProps) {
       hooks: onZoom ? { setSelect: [(u: uPlot) => { if (u.select.width > 4) onZoom(u.posToVal(u.select.left, 'x'), u.posToVal(u.select.left + u.select.width, 'x')); }] } : {},
       plugins: [nightBandsPlugin(nights ?? []), refLinesPlugin(refLines ?? []), timeMarksPlugin(marks ?? [])],
     };
-  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom, timeLabel, ink, grid]);
+  }, [width, height, timeZone, series, axes, nights, refLines, marks, onZoom, timeLabel, bridgeGapsSeconds, ink, grid]);
 
   return (
     <figure className="w-full" data-testid={props.testId} data-axis-colour={ink}>

@@ -8,6 +8,9 @@ import { useSocSeries } from './use-fleet';
 // Twelve hues far enough apart to tell lines apart on the dark surface; names are in the legend.
 const PALETTE = ['#f4ac5c', '#68d0dc', '#ff7a6e', '#b8e07a', '#c9a6ff', '#f2d45c', '#5cb8ff', '#ff9ed2', '#8fe3b8', '#e0b58a', '#a0aec8', '#ffc48a'];
 const AXES: ChartAxis[] = [{ scale: 'soc', label: 'state of charge (%)' }];
+// Nodes report every few minutes to an hour (their cadence follows their energy), so a line
+// runs on between reports and breaks only where a node was silent for longer.
+const BRIDGE_SECONDS = 2 * 3600;
 
 /** The whole fleet's energy-based state of charge over the last 48 hours, nights shaded. */
 export function FleetSocChart({ hours = 48 }: { hours?: number }) {
@@ -43,9 +46,10 @@ export function FleetSocChart({ hours = 48 }: { hours?: number }) {
             timeZone={series.time_zone}
             height={300}
             testId="fleet-chart"
+            bridgeGapsSeconds={BRIDGE_SECONDS}
           />
           <p className="mt-2 text-xs text-ink-muted">
-            {Math.round(series.bucket_seconds / 60)}-minute averages of calibrated bank volts; charge = (V² − V_cut²)/(V_max² − V_cut²).
+            {Math.round(series.bucket_seconds / 60)}-minute averages of calibrated bank volts; charge = (V² − V_cut²)/(V_max² − V_cut²). Lines join reports up to 2 h apart; a break means a longer silence.
           </p>
         </>
       )}

@@ -57,6 +57,15 @@ describe('organization switcher in Chromium', () => {
     expect(await page.getByTestId('member-role').textContent()).toBe('deployer');
     await page.getByTestId('fleet-row').first().waitFor();
     await expectFleetOf('cinder-flats', 'larkspur-hollow');
+    // Its nodes report every 10 min into the chart's 5-minute buckets: every other bucket is
+    // empty, and the lines must still be drawn (the first node's colour, #f4ac5c, on the canvas).
+    await page.getByTestId('fleet-chart').locator('canvas').waitFor();
+    await expect.poll(() => page.getByTestId('fleet-chart').locator('canvas').evaluate((canvas: HTMLCanvasElement) => {
+      const d = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+      let n = 0;
+      for (let i = 0; i < d.length; i += 4) if (Math.abs(d[i] - 0xf4) < 16 && Math.abs(d[i + 1] - 0xac) < 16 && Math.abs(d[i + 2] - 0x5c) < 16) n++;
+      return n;
+    })).toBeGreaterThan(300);
     await screenshot(page, 'org-switch-cinder');
 
     // The choice stays for the next page load.
