@@ -35,7 +35,7 @@ const schema = z.object({
     .union([z.literal('off'), z.coerce.number().int().min(35, 'at least 35 days, or off')])
     .default(730)
     .transform((v) => (v === 'off' ? null : v)),
-  /** The maintenance user (ALTER, DROP on readings only): set for the job runner alone, never for the app. */
+  /** The maintenance user (EXECUTE on the readings partition procedures only): set for the job runner alone, never for the app. */
   DB_MAINT_USER: z.string().default('duskwatch_maint'),
   DB_MAINT_PASSWORD: z.string().optional(),
 });

@@ -102,8 +102,7 @@ export async function startMariadb(profile: Profile): Promise<ChildProcess | nul
 
 /**
  * Creates the database, an application user with data privileges only (no DDL), and a
- * maintenance user for the retention pass. MariaDB 10.11 asks ALTER and DROP on the table for
- * ALTER TABLE ... DROP PARTITION, ALTER alone for REORGANIZE PARTITION (checked here); no SELECT.
+ * maintenance user for the retention pass (its rights: see grantMaintenanceOnReadings).
  */
 export async function provisionDatabase(profile: Profile, opts: { fresh?: boolean } = {}): Promise<void> {
   const { dbPassword, maintPassword } = loadSecrets(profile);
@@ -125,14 +124,22 @@ export async function provisionDatabase(profile: Profile, opts: { fresh?: boolea
 }
 
 /**
- * After the migrations (a table grant needs the table): the maintenance user may alter and drop
- * partitions of readings and touch nothing else. Idempotent.
+ * After the migrations (a grant needs its object): the maintenance user may call the three
+ * partition procedures of readings (db/migrations/20261203000005_partition_procedures.ts) and
+ * nothing else. The ALTER and DROP on readings that databases made before them had granted are
+ * taken back: DROP alone let it TRUNCATE the table. Idempotent.
  */
 export async function grantMaintenanceOnReadings(profile: Profile): Promise<void> {
   const c = await rootConnection(profile);
   try {
     for (const host of ['127.0.0.1', 'localhost']) {
-      await c.query(`GRANT ALTER, DROP ON \`${profile.dbName}\`.\`readings\` TO 'duskwatch_maint'@'${host}'`);
+      const user = `'duskwatch_maint'@'${host}'`;
+      await c.query(`REVOKE ALTER, DROP ON \`${profile.dbName}\`.\`readings\` FROM ${user}`).catch((e: { code?: string }) => {
+        if (e.code !== 'ER_NONEXISTING_TABLE_GRANT') throw e; // nothing to take back
+      });
+      for (const procedure of ['readings_partitions', 'readings_drop_month', 'readings_add_months']) {
+        await c.query(`GRANT EXECUTE ON PROCEDURE \`${profile.dbName}\`.\`${procedure}\` TO ${user}`);
+      }
     }
   } finally {
     await c.end();

@@ -1,12 +1,13 @@
 import knexFactory, { type Knex } from 'knex';
-import { dropPartitions, listReadingPartitions, monthStart, splitMonthsFromMax } from '../db/queries/partitions';
+import { addMonthsAsMaintenance, dropMonthAsMaintenance, listReadingPartitionsAsMaintenance, monthStart } from '../db/queries/partitions';
 import { connectionOptions } from '../db/connection';
 import { getEnv } from '../env';
 import { withNamedLock, type LockOutcome } from './named-lock';
 
 /**
  * Partition upkeep of the raw readings, run by the job runner about once an hour as the
- * maintenance user (ALTER, DROP on readings only):
+ * maintenance user, which may only call the partition procedures (EXECUTE on three, no table
+ * privilege; see the migration 20261203000005_partition_procedures):
  *  - month partitions are kept for the current month and the next MONTHS_AHEAD, split off pmax,
  *    so pmax never fills with real rows;
  *  - with a retention of N days, a month partition goes once its upper bound is at or before
@@ -33,14 +34,16 @@ export async function runRetentionPass({ knex, retentionDays, now = new Date() }
   return withNamedLock({ knex, name: RETENTION_PASS_LOCK }, async () => {
     // Ahead first: if the clock has run past the last month partition, rows in pmax move into
     // their months before anything is dropped.
-    const before = await listReadingPartitions(knex);
+    const before = await listReadingPartitionsAsMaintenance(knex);
     const lastBound = before.map((p) => p.lessThan).filter((d): d is Date => d !== null).at(-1) ?? monthStart(now);
-    const added = await splitMonthsFromMax(knex, { from: lastBound, until: monthStart(now, MONTHS_AHEAD + 1) });
+    const until = monthStart(now, MONTHS_AHEAD + 1);
+    const parts = lastBound < until ? (await addMonthsAsMaintenance(knex, until), await listReadingPartitionsAsMaintenance(knex)) : before;
+    const added = parts.filter((p) => !before.some((b) => b.name === p.name)).map((p) => p.name);
 
     const cutoff = retentionDays === null ? null : new Date(now.getTime() - retentionDays * DAY_MS);
-    const parts = added.length ? await listReadingPartitions(knex) : before;
     const dropped = cutoff ? parts.filter((p) => p.lessThan !== null && p.lessThan <= cutoff).map((p) => p.name) : [];
-    await dropPartitions(knex, dropped);
+    // One at a time: each drop is checked by the database on its own (the 35-day floor).
+    for (const name of dropped) await dropMonthAsMaintenance(knex, name);
     const pmax = parts.find((p) => p.lessThan === null);
     return { cutoff, dropped, added, pmaxRowsEstimate: pmax?.rowsEstimate ?? 0 };
   });

@@ -133,9 +133,29 @@ describe('retention of raw readings', () => {
     // ER_TABLEACCESS_DENIED_ERROR (1142), MariaDB's answer to a missing table privilege (from memory).
     await expect(db().raw(`ALTER TABLE readings DROP PARTITION ${first.name}`)).rejects.toThrow(/ALTER command denied/);
     await expect(db().raw('ALTER TABLE readings REORGANIZE PARTITION pmax INTO (PARTITION pmax VALUES LESS THAN (MAXVALUE))')).rejects.toThrow(/ALTER command denied/);
+    await expect(db().raw('CALL readings_drop_month(?)', [first.name])).rejects.toThrow(/execute command denied/i);
     await expect(maint.raw('SELECT COUNT(*) FROM readings')).rejects.toThrow(/SELECT command denied/);
     await expect(maint.raw('DELETE FROM reading_rollups')).rejects.toThrow(/DELETE command denied/);
     await expect(maint.raw('ALTER TABLE nodes ADD COLUMN x INT')).rejects.toThrow(/ALTER command denied/);
     expect((await listReadingPartitions(root)).map((p) => p.name)).toContain(first.name);
+  });
+
+  it('gives the maintenance user no table privilege on readings: only the procedures, which refuse recent months', async () => {
+    const [first] = await listReadingPartitions(root);
+    // Before the procedures it held ALTER and DROP on readings, and DROP alone allows TRUNCATE.
+    await expect(maint.raw('TRUNCATE TABLE readings')).rejects.toThrow(/DROP command denied/);
+    await expect(maint.raw(`ALTER TABLE readings DROP PARTITION ${first.name}`)).rejects.toThrow(/ALTER command denied/);
+    await expect(maint.raw('ALTER TABLE readings DROP COLUMN seq')).rejects.toThrow(/ALTER command denied/);
+
+    const thisMonth = `p${new Date().toISOString().slice(0, 7).replace('-', '')}`;
+    await expect(maint.raw('CALL readings_drop_month(?)', [thisMonth])).rejects.toThrow(/may hold readings from the last 35 days/);
+    await expect(maint.raw('CALL readings_drop_month(?)', ['pmax'])).rejects.toThrow(/not a month partition name/);
+    await expect(maint.raw('CALL readings_drop_month(?)', ["p202601; DROP TABLE nodes"])).rejects.toThrow(/not a month partition name/);
+    await expect(maint.raw('CALL readings_drop_month(?)', ['p199001'])).rejects.toThrow(/no such partition/);
+    await expect(maint.raw('CALL readings_add_months(?)', ['2099-01-01'])).rejects.toThrow(/at most 36 months ahead/);
+    const names = (await listReadingPartitions(root)).map((p) => p.name);
+    expect(names).toContain(thisMonth);
+    expect(names).toContain(first.name);
+    expect(await root.schema.hasTable('nodes')).toBe(true);
   });
 });

@@ -22,11 +22,34 @@ export async function listReadingPartitions(knex: Knex, table = 'readings'): Pro
      ORDER BY PARTITION_ORDINAL_POSITION`,
     [table],
   );
-  return (rows as { name: string; bound: string; row_count: number | null }[]).map((r) => ({
-    name: r.name,
-    lessThan: parseBound(r.bound),
-    rowsEstimate: Number(r.row_count ?? 0),
-  }));
+  return toPartitions(rows as PartitionRow[]);
+}
+
+type PartitionRow = { name: string; bound: string; row_count: number | null };
+const toPartitions = (rows: PartitionRow[]): MonthPartition[] =>
+  rows.map((r) => ({ name: r.name, lessThan: parseBound(r.bound), rowsEstimate: Number(r.row_count ?? 0) }));
+
+/*
+ * The maintenance user's way (see the migration 20261203000005_partition_procedures): it holds
+ * EXECUTE on three procedures and no privilege on the table, so it cannot TRUNCATE readings or
+ * alter its columns, and the database itself refuses to drop a month younger than 35 days.
+ */
+
+/** The month partitions of readings through readings_partitions(). */
+export async function listReadingPartitionsAsMaintenance(knex: Knex): Promise<MonthPartition[]> {
+  const [result] = await knex.raw('CALL readings_partitions()');
+  return toPartitions((result as [PartitionRow[], unknown])[0]);
+}
+
+/** Drops one month partition through readings_drop_month(name) (refused unless it ended 35 days ago or more). */
+export async function dropMonthAsMaintenance(knex: Knex, name: string): Promise<void> {
+  await knex.raw('CALL readings_drop_month(?)', [name]);
+}
+
+/** Splits month partitions off pmax up to (not including) the month starting at `until`, through readings_add_months. */
+export async function addMonthsAsMaintenance(knex: Knex, until: Date): Promise<void> {
+  if (monthStart(until).getTime() !== until.getTime()) throw new Error(`${until.toISOString()} is not the start of a month`);
+  await knex.raw('CALL readings_add_months(?)', [ymd(until)]);
 }
 
 /** `'2026-02-01'` or `'2026-02-01 00:00:00'` (RANGE COLUMNS on DATETIME) → a UTC date; MAXVALUE → null. */
@@ -43,31 +66,15 @@ export function monthStart(at: Date, months = 0): Date {
 }
 
 const ymd = (d: Date) => d.toISOString().slice(0, 10);
-const partitionName = (start: Date) => `p${start.getUTCFullYear()}${String(start.getUTCMonth() + 1).padStart(2, '0')}`;
 const IDENT = /^[A-Za-z0-9_]+$/;
 
-/** Dropping a partition deletes its rows at once, without a row-by-row DELETE (needs ALTER and DROP). */
+/**
+ * Dropping a partition deletes its rows at once, without a row-by-row DELETE (needs ALTER and
+ * DROP on the table: root only, as the bench does on its scratch table; the retention pass goes
+ * through dropMonthAsMaintenance).
+ */
 export async function dropPartitions(knex: Knex, names: string[], table = 'readings'): Promise<void> {
   if (!names.length) return;
   if (![table, ...names].every((n) => IDENT.test(n))) throw new Error('bad partition or table name');
   await knex.raw(`ALTER TABLE \`${table}\` DROP PARTITION ${names.map((n) => `\`${n}\``).join(', ')}`);
-}
-
-/**
- * Splits month partitions off the front of pmax, one per month from `from` up to (not including)
- * `until`, in one statement. pmax is empty in normal running, so the split copies nothing.
- * Returns the names added.
- */
-export async function splitMonthsFromMax(knex: Knex, { from, until, table = 'readings' }: { from: Date; until: Date; table?: string }): Promise<string[]> {
-  if (monthStart(from).getTime() !== from.getTime()) throw new Error(`the last partition bound ${from.toISOString()} is not the start of a month`);
-  if (!IDENT.test(table)) throw new Error('bad table name');
-  const parts: string[] = [];
-  const names: string[] = [];
-  for (let start = monthStart(from); start < until; start = monthStart(start, 1)) {
-    names.push(partitionName(start));
-    parts.push(`PARTITION \`${partitionName(start)}\` VALUES LESS THAN ('${ymd(monthStart(start, 1))}')`);
-  }
-  if (!parts.length) return [];
-  await knex.raw(`ALTER TABLE \`${table}\` REORGANIZE PARTITION pmax INTO (${parts.join(', ')}, PARTITION pmax VALUES LESS THAN (MAXVALUE))`);
-  return names;
 }
