@@ -47,7 +47,7 @@ export function NodeForm({ nodeId, initial, sites }: { nodeId?: number; initial:
       router.push(`/nodes/${res.data.id}/credentials?created=1`);
       return;
     }
-    setMessage({ text: 'Saved. The next reading is evaluated with these settings.', bad: false });
+    setMessage({ text: 'Saved. The node’s state, charge and margin were worked out again with these settings.', bad: false });
     router.refresh();
   }
 

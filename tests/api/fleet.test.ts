@@ -51,7 +51,7 @@ describe('GET /api/v1/fleet', () => {
       const cut = spec.converter.cutoff_volts;
       // DESIGN.md §3 definition, clamped to 0..1 (derived here from the stored volts).
       const expected = Math.min(1, Math.max(0, (n.volts ** 2 - cut ** 2) / (maxVolts ** 2 - cut ** 2)));
-      expect(n.soc).toBeCloseTo(expected, 6);
+      expect(n.soc, `${n.name} ${n.volts} V, spec ${JSON.stringify(spec.bank)} cut ${cut}`).toBeCloseTo(expected, 6);
       // Reserve in J; the wire carries joules, Wh is 1/3600 of it at the edge (SI, common practice).
       if (n.reserve_joules != null) expect(n.reserve_joules).toBeGreaterThanOrEqual(0);
     }

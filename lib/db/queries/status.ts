@@ -30,3 +30,16 @@ export async function refreshNodeStatus(nodeId: number, now = new Date(), knex: 
   await knex('node_status').insert({ node_id: nodeId, org_id: loaded.node.org_id, ...status }).onConflict('node_id').merge();
   return status;
 }
+
+/**
+ * After a node's settings or its site change: the status is recomputed at once from the latest
+ * reading with the new bank, converter, load or sun, so the fleet never shows a state, charge
+ * or margin worked out for settings the node no longer has (until its next report).
+ */
+export async function refreshStatusOfNodes(nodeIds: number[], now = new Date()): Promise<void> {
+  for (const nodeId of nodeIds) await refreshNodeStatus(nodeId, now);
+}
+
+export async function nodeIdsOfSite(orgId: number, siteId: number, knex: Knex | Knex.Transaction = db()): Promise<number[]> {
+  return knex('nodes').where({ org_id: orgId, site_id: siteId }).whereNull('deleted_at').orderBy('id').pluck('id');
+}

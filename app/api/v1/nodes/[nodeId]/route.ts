@@ -1,4 +1,5 @@
 import { deleteNode, getNodeInOrg, nodeToWire, updateNode } from '@/lib/db/queries/nodes';
+import { refreshStatusOfNodes } from '@/lib/db/queries/status';
 import { problems } from '@/lib/errors';
 import { idParam, memberRoute } from '@/lib/http/route';
 import { bankFromWire, converterFromWire, crossFieldProblems, loadFromWire } from '@/lib/schemas/model';
@@ -16,6 +17,7 @@ export const PUT = memberRoute<typeof nodeBody, P>({ permission: 'nodes:write', 
   const cross = crossFieldProblems({ bank: bankFromWire(body.bank), converter: converterFromWire(body.converter), load: loadFromWire(body.load) });
   if (cross.length) throw problems.invalid(cross);
   await updateNode(member.orgId, nodeId, body);
+  await refreshStatusOfNodes([nodeId]);
   return Response.json(nodeToWire(await getNodeInOrg(member.orgId, nodeId)));
 });
 

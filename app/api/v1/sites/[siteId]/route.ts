@@ -1,4 +1,5 @@
 import { deleteSite, getSiteWire, updateSite } from '@/lib/db/queries/sites';
+import { nodeIdsOfSite, refreshStatusOfNodes } from '@/lib/db/queries/status';
 import { idParam, memberRoute } from '@/lib/http/route';
 import { siteBody } from '@/lib/schemas/site';
 
@@ -11,6 +12,8 @@ export const GET = memberRoute<undefined, P>({ permission: 'fleet:read' }, async
 export const PUT = memberRoute<typeof siteBody, P>({ permission: 'sites:write', body: siteBody }, async ({ member, params, body }) => {
   const siteId = idParam(params.siteId, 'The site');
   await updateSite(member.orgId, siteId, body);
+  // Its nodes' recharge times and margins follow the new place, zone or recharge elevation.
+  await refreshStatusOfNodes(await nodeIdsOfSite(member.orgId, siteId));
   return Response.json(await getSiteWire(member.orgId, siteId));
 });
 

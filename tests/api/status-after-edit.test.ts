@@ -1,0 +1,75 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb } from '@/lib/db/knex';
+import { api } from './helpers/stack';
+import { createTestNode } from './helpers/fleet';
+
+afterAll(closeDb);
+
+/**
+ * A node's status is worked out again as soon as its settings or its site change, not at its
+ * next report: the fleet must never show a charge or a recharge time for settings it no
+ * longer has.
+ */
+type Node = Awaited<ReturnType<typeof createTestNode>>;
+type FleetNode = { id: number; volts: number; soc: number; recharge_at: string | null; reserve_joules: number | null };
+let node: Node;
+let siteBody: Record<string, unknown>;
+let siteId: number;
+
+const fleetRow = async (): Promise<FleetNode> =>
+  (await node.session.agent.get('/api/v1/fleet')).body.nodes.find((n: FleetNode) => n.id === node.nodeId);
+
+// DESIGN.md §3: charge by energy above the cutoff (derived here from the figures on the wire).
+const socOf = (volts: number, maxVolts: number, cut: number) => Math.min(1, Math.max(0, (volts ** 2 - cut ** 2) / (maxVolts ** 2 - cut ** 2)));
+
+beforeAll(async () => {
+  node = await createTestNode('status-after-edit');
+  const s = node.session;
+  // A site of its own, so moving it touches no other test's nodes.
+  siteBody = { name: `edit-site-${process.pid}-${Date.now()}`, lat: 45.5, lon: -116.2, time_zone: 'America/Boise', recharge_elevation_deg: 3, notes: '' };
+  const site = await s.agent.post('/api/v1/sites').set('origin', s.origin).send(siteBody);
+  expect(site.status).toBe(201);
+  siteId = site.body.id;
+  const moved = await s.agent.put(`/api/v1/nodes/${node.nodeId}`).set('origin', s.origin).send({ ...node.body, site_id: siteId });
+  expect(moved.status).toBe(200);
+  const post = await api().post('/api/v1/readings').set('authorization', `Bearer ${node.token}`).set('content-type', 'application/json')
+    .send(JSON.stringify({ t: new Date(Date.now() - 60_000).toISOString(), v: 4.2 }));
+  expect(post.status).toBe(200);
+});
+
+describe('status after an edit', () => {
+  it('follows a new cutoff and a larger bank at once', async () => {
+    const before = await fleetRow();
+    const bank = node.body.bank as { cells_series: number; cell_rated_volts: number; cells_parallel: number };
+    const converter = node.body.converter as { cutoff_volts: number; start_volts: number };
+    const maxVolts = bank.cells_series * bank.cell_rated_volts;
+    expect(before.soc).toBeCloseTo(socOf(before.volts, maxVolts, converter.cutoff_volts), 6);
+
+    const cut = Number(((converter.cutoff_volts + Math.min(converter.start_volts, before.volts)) / 2).toFixed(2));
+    const body = { ...node.body, site_id: siteId, converter: { ...converter, cutoff_volts: cut }, bank: { ...bank, cells_parallel: bank.cells_parallel * 2 } };
+    const put = await node.session.agent.put(`/api/v1/nodes/${node.nodeId}`).set('origin', node.session.origin).send(body);
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+
+    const after = await fleetRow();
+    expect(after.soc).toBeCloseTo(socOf(after.volts, maxVolts, cut), 6);
+    expect(after.soc).toBeLessThan(before.soc); // a higher cutoff leaves less of the energy usable
+    // Twice the cells in parallel hold twice the energy (E = ½CV², C ∝ cells in parallel; derived here).
+    if (before.reserve_joules != null && after.reserve_joules != null && before.reserve_joules > 0) {
+      expect(after.reserve_joules).toBeGreaterThan(before.reserve_joules * 1.2);
+    }
+  });
+
+  it('follows the site: a place a quarter of the world further east gets its sunrise 6 h sooner', async () => {
+    const before = await fleetRow();
+    expect(before.recharge_at).not.toBeNull();
+    const put = await node.session.agent.put(`/api/v1/sites/${siteId}`).set('origin', node.session.origin)
+      .send({ ...siteBody, lon: -116.2 + 90, time_zone: 'Atlantic/Azores' });
+    expect(put.status).toBe(200);
+    const after = await fleetRow();
+    expect(after.recharge_at).not.toBeNull();
+    // 90° of longitude is 6 h of solar time (360° a day; common practice); the next sunrise
+    // comes about that much sooner, or a day less that later when the sooner one has passed.
+    const shiftHours = (Date.parse(after.recharge_at!) - Date.parse(before.recharge_at!)) / 3_600_000;
+    expect(Math.min(Math.abs(shiftHours + 6), Math.abs(shiftHours - 18))).toBeLessThan(1.5);
+  });
+});
