@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { StateGlyph } from '@/components/state-glyph';
-import { KIND_LABELS, kindLabel } from '@/lib/alerts/labels';
+import { alertLine, kindLabel } from '@/lib/alerts/labels';
 import type { AlertWire } from './alert-wire';
 import { AcknowledgeButton } from './acknowledge-button';
 import { AlertFigures } from './alert-figures';
@@ -35,7 +35,7 @@ export function AlertCard({ alert, canAcknowledge, isOwner, onMessage }: {
           <h3 id={headingId} className="mt-1 text-lg font-bold leading-snug">
             {kindLabel(alert.kind)} <span className="sr-only">on {alert.node_name}</span>
           </h3>
-          <p className="text-sm text-ink-muted">{KIND_LABELS[alert.kind]?.line}</p>
+          <p className="text-sm text-ink-muted">{alertLine(alert.kind, alert.detail)}</p>
         </div>
         {canAcknowledge && alert.status === 'open' ? <AcknowledgeButton alert={alert} onDone={onMessage} /> : null}
       </div>

@@ -2,8 +2,7 @@ import Link from 'next/link';
 import { StateGlyph } from '@/components/state-glyph';
 import { Term } from '@/components/ui/term';
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
-import { formatVolts } from '@/lib/format/units';
-import { AgeValue, DrawValue, LocalTime, MarginValue, ReserveValue, SocValue } from './fleet-values';
+import { AgeValue, BankValue, DrawValue, isQuiet, LocalTime, MarginValue, QuietValue, ReserveValue, SocValue } from './fleet-values';
 
 /** Phone (below md): one card per node instead of the wide table; the whole card links to the node. */
 export function FleetCards({ nodes, now }: { nodes: FleetNodeWire[]; now: string }) {
@@ -20,12 +19,12 @@ export function FleetCards({ nodes, now }: { nodes: FleetNodeWire[]; now: string
               <StateGlyph state={n.state} size={20} />
             </div>
             <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-2 text-sm">
-              <Term term="Bank"><span className="figures">{formatVolts(n.volts)}</span></Term>
+              <Term term="Bank"><BankValue volts={n.volts} maxVolts={n.max_volts} /></Term>
               <Term term="Charge"><SocValue soc={n.soc} /></Term>
               <Term term="Reserve"><ReserveValue joules={n.reserve_joules} /></Term>
-              <Term term="Margin"><MarginValue margin={n.margin} /></Term>
-              <Term term="Recharge"><LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} /></Term>
-              <Term term="Brownout"><LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" /></Term>
+              <Term term="Margin">{isQuiet(n.state) ? <QuietValue /> : <MarginValue margin={n.margin} />}</Term>
+              <Term term="Recharge">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} />}</Term>
+              <Term term="Brownout">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" />}</Term>
               <Term term="Last reading"><AgeValue at={n.last_reading_at} now={now} /></Term>
               <Term term="Draw (measured / model)"><DrawValue node={n} /></Term>
             </dl>

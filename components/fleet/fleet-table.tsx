@@ -1,8 +1,7 @@
 import Link from 'next/link';
 import { StateGlyph } from '@/components/state-glyph';
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
-import { formatVolts } from '@/lib/format/units';
-import { AgeValue, DrawValue, LocalTime, MarginValue, ReserveValue, SocValue } from './fleet-values';
+import { AgeValue, BankValue, DrawValue, isQuiet, LocalTime, MarginValue, QuietValue, ReserveValue, SocValue } from './fleet-values';
 import type { SortDirection, SortKey } from './sort-fleet';
 
 const COLUMNS: { label: string; unit?: string; sort?: SortKey; right?: boolean }[] = [
@@ -52,12 +51,12 @@ export function FleetTable({ nodes, now, sortKey, direction, onSort }: { nodes: 
                 <span className="block text-xs text-ink-muted">{n.site_name}{n.purpose ? ` · ${n.purpose}` : ''}</span>
               </td>
               <td className="whitespace-nowrap py-2.5 pr-3"><StateGlyph state={n.state} /></td>
-              <td className="figures whitespace-nowrap py-2.5 pr-3 text-right">{formatVolts(n.volts)}</td>
+              <td className="whitespace-nowrap py-2.5 pr-3 text-right"><BankValue volts={n.volts} maxVolts={n.max_volts} /></td>
               <td className="whitespace-nowrap py-2.5 pr-3"><SocValue soc={n.soc} /></td>
               <td className="whitespace-nowrap py-2.5 pr-3 text-right"><ReserveValue joules={n.reserve_joules} /></td>
-              <td className="whitespace-nowrap py-2.5 pr-3 text-right"><MarginValue margin={n.margin} /></td>
-              <td className="whitespace-nowrap py-2.5 pr-3"><LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} /></td>
-              <td className="whitespace-nowrap py-2.5 pr-3"><LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" /></td>
+              <td className="whitespace-nowrap py-2.5 pr-3 text-right">{isQuiet(n.state) ? <QuietValue /> : <MarginValue margin={n.margin} />}</td>
+              <td className="whitespace-nowrap py-2.5 pr-3">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} />}</td>
+              <td className="whitespace-nowrap py-2.5 pr-3">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" />}</td>
               <td className="whitespace-nowrap py-2.5 pr-3"><AgeValue at={n.last_reading_at} now={now} /></td>
               <td className="whitespace-nowrap py-2.5 text-right"><DrawValue node={n} /></td>
             </tr>

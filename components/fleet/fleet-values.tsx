@@ -1,9 +1,31 @@
+import { DRAW_ANOMALY_RATIO, overVoltageFraction } from '@/lib/alerts/kinds';
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
 import { formatInTimeZone } from '@/lib/format/time';
-import { formatAge, formatJoules, formatMargin, formatPercent, formatWatts, formatWattHours } from '@/lib/format/units';
+import { formatAge, formatJoules, formatMargin, formatPercent, formatVolts, formatWatts, formatWattHours } from '@/lib/format/units';
 import { formatUntilOrAgo, secondsBetween } from './duration';
 
 /** One node's figures as the table and the cards show them; times in the node's site zone. */
+/** Bank volts; over 98 % of the rated maximum it turns into a caution with the real figure. */
+export function BankValue({ volts, maxVolts }: { volts: number | null; maxVolts: number }) {
+  const over = overVoltageFraction({ volts, maxVolts });
+  if (over === null) return <span className="figures">{formatVolts(volts)}</span>;
+  return (
+    <span className="figures font-bold text-hazard" data-testid="over-voltage">
+      {formatVolts(volts)}
+      <span className="block text-xs font-normal">{Math.round(over * 100)} % of rated {formatVolts(maxVolts, 2)}</span>
+    </span>
+  );
+}
+
+/** A quiet node's margin and times were projected from its last reading: not shown as current. */
+export function isQuiet(state: FleetNodeWire['state']): boolean {
+  return state === 'dark' || state === 'silent';
+}
+
+export function QuietValue() {
+  return <span className="text-xs text-ink-muted" title="Projected from its last reading, which is too old to go by">quiet</span>;
+}
+
 export function SocValue({ soc }: { soc: number | null }) {
   return (
     <span className="inline-flex flex-col gap-1">
@@ -48,10 +70,10 @@ export function AgeValue({ at, now }: { at: string | null; now: string }) {
 /** Measured vs modelled bank-side draw; well above the model hints at a leak or a node stuck awake. */
 export function DrawValue({ node }: { node: FleetNodeWire }) {
   const ratio = node.draw_ratio;
-  const high = ratio != null && ratio > 1.5;
+  const high = ratio != null && ratio > DRAW_ANOMALY_RATIO;
   return (
     <span className="figures">
-      {formatWatts(node.measured_watts)} <span className="text-ink-muted">/ {formatWatts(node.load_watts)}</span>
+      {formatWatts(node.measured_watts)} <span className="text-ink-muted">/ {formatWatts(node.modelled_watts ?? node.load_watts)}</span>
       {ratio != null ? (
         <span className={`block text-xs ${high ? 'font-bold text-hazard' : 'text-ink-muted'}`}>
           {ratio.toFixed(2)}× model{high ? ' — high' : ''}

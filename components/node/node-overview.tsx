@@ -1,7 +1,7 @@
 'use client';
 
 import { StateGlyph } from '@/components/state-glyph';
-import { DRAW_ANOMALY_RATIO } from '@/lib/alerts/kinds';
+import { DRAW_ANOMALY_RATIO, KIND_INFO, overVoltageFraction, overVoltageWords } from '@/lib/alerts/kinds';
 import { stateOfCharge } from '@/lib/energy';
 import { formatInTimeZone } from '@/lib/format/time';
 import { formatAge, formatJoules, formatMargin, formatPercent, formatVolts, formatWattHours, formatWatts } from '@/lib/format/units';
@@ -24,6 +24,8 @@ export function NodeOverview({ nodeId, initial }: { nodeId: number; initial: Sta
   const ratio = s.measured?.ratio ?? null;
   // A quiet node's recharge and brownout are projected from its last reading, which may be long past.
   const quiet = s.state === 'dark' || s.state === 'silent';
+  const over = overVoltageFraction({ volts: s.volts, maxVolts: s.bank.max_volts });
+  const rechargePassed = s.recharge_at !== null && s.recharge_at <= s.evaluated_at;
 
   return (
     <section aria-labelledby="tonight-heading" className="mt-5" data-testid="node-overview">
@@ -36,6 +38,14 @@ export function NodeOverview({ nodeId, initial }: { nodeId: number; initial: Sta
           {sentence.text}
         </p>
       </div>
+      {over !== null && s.volts !== null ? (
+        <div role="alert" className="mt-3 max-w-3xl rounded-lg border border-hazard bg-dusk-900 px-4 py-3 text-sm" data-testid="over-voltage-caution">
+          <p className="font-bold text-hazard">Over-voltage: the bank reads {overVoltageWords({ volts: s.volts, maxVolts: s.bank.max_volts })}.</p>
+          <p className="mt-1 text-ink-muted">
+            The reserve and the margin count no charge above the rating. If the reading is real, {KIND_INFO.over_voltage.todo.join(' ').replace(/^Check/, 'check')} If it is not, check the bank settings and the calibration.
+          </p>
+        </div>
+      ) : null}
       {isError ? <p role="status" className="mt-2 text-xs text-hazard">Live refresh failed; showing figures from {formatAge(new Date(dataUpdatedAt), new Date(now))}.</p> : null}
 
       <div className="mt-4 max-w-xl">
@@ -43,11 +53,11 @@ export function NodeOverview({ nodeId, initial }: { nodeId: number; initial: Sta
       </div>
 
       <dl className="mt-4 grid grid-cols-2 gap-2 sm:grid-cols-3 lg:grid-cols-4" data-testid="node-figures">
-        <FigureTile label="Bank, calibrated" value={formatVolts(s.volts)} note={`full ${formatVolts(s.bank.max_volts, 2)} · floor ${formatVolts(s.bank.burst_floor_volts, 2)}`} testId="figure-volts" />
+        <FigureTile label="Bank, calibrated" value={formatVolts(s.volts)} note={`${over !== null ? 'over the rated' : 'full'} ${formatVolts(s.bank.max_volts, 2)} · floor ${formatVolts(s.bank.burst_floor_volts, 2)}`} tone={over !== null ? 'hazard' : 'ink'} testId="figure-volts" />
         <FigureTile label="State of charge" value={formatPercent(s.soc)} note="of the energy above cutoff" tone="ember" testId="figure-soc" />
         <FigureTile label="Reserve" value={formatJoules(s.reserve_joules)} note={s.reserve_joules === null ? 'no reading yet' : `${formatWattHours(s.reserve_joules)} above the burst floor`} testId="figure-reserve" />
-        <FigureTile label="Night margin" value={formatMargin(s.margin)} note="reserve ÷ draw to recharge" tone={marginTone} testId="figure-margin" />
-        <FigureTile label="Recharge" value={at(s.recharge_at)} note={quiet ? 'as seen from the last reading' : "sun up through the site's elevation"} tone="tide" testId="figure-recharge" />
+        <FigureTile label="Night margin" value={formatMargin(s.margin)} note={quiet ? 'at the last reading' : 'reserve ÷ draw to recharge'} tone={quiet ? 'ink' : marginTone} testId="figure-margin" />
+        <FigureTile label="Recharge" value={at(s.recharge_at)} note={rechargePassed ? 'passed since the last reading' : quiet ? 'as seen from the last reading' : "sun up through the site's elevation"} tone={rechargePassed ? 'ink' : 'tide'} testId="figure-recharge" />
         <FigureTile label="Projected brownout" value={s.volts === null ? '—' : at(s.brownout_at, 'none')} note={s.volts === null ? 'no reading yet' : quiet ? 'as seen from the last reading' : s.brownout_at === null ? 'before the recharge' : 'at the burst floor'} tone={s.brownout_at === null ? 'ink' : 'hazard'} testId="figure-brownout" />
         <FigureTile label="Last reading" value={formatAge(s.last_reading_at === null ? null : new Date(s.last_reading_at * 1000), new Date(now))} note={at(s.last_reading_at, 'never')} testId="figure-age" />
         <FigureTile

@@ -7,15 +7,22 @@ export function tonightSentence({ s }: { s: StatusReply }): { text: string; tone
   const tz = s.node.time_zone;
   const at = (seconds: number | null) => (seconds === null ? '—' : formatInTimeZone(new Date(seconds * 1000), tz));
   const last = at(s.last_reading_at);
+  const brownoutPassed = s.brownout_at !== null && s.brownout_at <= s.evaluated_at;
   switch (s.state) {
     case 'new':
       return { text: 'No reading has arrived yet: nothing to project.', tone: 'muted' };
     case 'dark':
-      return { text: `Quiet since ${last}, close to its burst floor: presumed browned out. It returns once the bank climbs back to its start voltage.`, tone: 'hazard' };
+      return {
+        text: `Quiet since ${last}, ${brownoutPassed ? `past its projected brownout at ${at(s.brownout_at)}` : 'close to its burst floor'}: presumed browned out. It returns once the bank climbs back to its start voltage.`,
+        tone: 'hazard',
+      };
     case 'silent':
       return { text: `Quiet since ${last} while its bank was healthy: look at the link or the firmware.`, tone: 'muted' };
     default:
       break;
+  }
+  if (s.brownout_at !== null && brownoutPassed) {
+    return { text: `Projected to brown out at ${at(s.brownout_at)}, and no report has come since ${last}.`, tone: 'hazard' };
   }
   if (s.brownout_at !== null) {
     const early = s.recharge_at !== null ? ` — ${spanWords(s.recharge_at - s.brownout_at)} before the recharge at ${at(s.recharge_at)}` : '';

@@ -44,7 +44,8 @@ export async function evaluatePassNode({ knex, passNode, now }: { knex: Knex; pa
   const day = assessLatestDay({ spec, samples, now });
   const ruleInput = { status, thresholds: { steady: org.steady, thin: org.thin }, alertOnThin: org.alertOnThin, maxVolts: modelBank({ bank: spec.bank }).maxVolts, night, day };
   const measuredWatts = night?.measuredWatts ?? null;
-  return { status, measuredWatts, verdicts: evaluateAlertRules(ruleInput), detail: alertDetail({ ...ruleInput, measuredWatts }) };
+  const modelledWatts = night?.modelledWatts ?? null;
+  return { status, measuredWatts, modelledWatts, verdicts: evaluateAlertRules(ruleInput), detail: alertDetail({ ...ruleInput, measuredWatts }) };
 }
 
 export async function applyNodePass(opts: {
@@ -73,12 +74,13 @@ async function writeNodePass(opts: {
   audience: OrgAudience;
   status: ReturnType<typeof deriveNodeStatus>;
   measuredWatts: number | null;
+  modelledWatts: number | null;
   verdicts: Verdicts;
   detail: AlertDetail;
 }): Promise<NodePassResult> {
   const { trx, passNode, now, detail } = opts;
   const { node, site, org } = passNode;
-  await upsertNodeStatus(trx, { nodeId: node.id, orgId: org.id, status: opts.status, measuredWatts: opts.measuredWatts });
+  await upsertNodeStatus(trx, { nodeId: node.id, orgId: org.id, status: opts.status, measuredWatts: opts.measuredWatts, modelledWatts: opts.modelledWatts });
   const result: NodePassResult = { nodeId: node.id, state: opts.status.state, opened: [], resolved: [], reminded: [], mails: 0 };
   for (const kind of ALERT_KINDS) {
     const existing = await lockUnresolvedAlert(trx, node.id, kind);

@@ -20,6 +20,18 @@ export const DRAW_CLEAR_RATIO = 1.2;
 export const OVER_VOLTAGE_FRACTION = 0.98;
 export const OVER_VOLTAGE_CLEAR_FRACTION = 0.96;
 
+/** The reading as a fraction of the bank's rated maximum when it is over the alert line, else null. */
+export function overVoltageFraction({ volts, maxVolts }: { volts: number | null | undefined; maxVolts: number | null | undefined }): number | null {
+  if (volts == null || !maxVolts || maxVolts <= 0) return null;
+  const fraction = volts / maxVolts;
+  return fraction > OVER_VOLTAGE_FRACTION ? fraction : null;
+}
+
+/** "9.50 V, 176 % of its rated 5.40 V": the over-voltage figure as the screens and the e-mail say it. */
+export function overVoltageWords({ volts, maxVolts }: { volts: number; maxVolts: number }): string {
+  return `${volts.toFixed(2)} V, ${Math.round((100 * volts) / maxVolts)} % of its rated ${maxVolts.toFixed(2)} V`;
+}
+
 export const KIND_INFO: Record<AlertKind, { title: string; todo: string[] }> = {
   reserve_short: {
     title: 'short: projected brownout before recharge',

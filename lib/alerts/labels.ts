@@ -1,5 +1,5 @@
 import type { NodeState } from '../config/node-states';
-import type { AlertKind, AlertStatus } from './kinds';
+import { overVoltageWords, type AlertKind, type AlertStatus } from './kinds';
 
 /**
  * Human words for the alert kinds, statuses and deliveries, as the screens say them (our own
@@ -26,6 +26,14 @@ export const DELIVERY_LABELS: Record<'immediate' | 'digest', { label: string; li
   immediate: { label: 'Right away', line: 'One e-mail as each alert opens.' },
   digest: { label: 'Daily digest', line: 'One e-mail a day, from 07:00 site time, listing the day\u2019s alerts.' },
 };
+
+/** The alert's one line, with its own figure where the kind has one. */
+export function alertLine(kind: AlertKind, detail: { volts?: number | null; max_volts?: number | null } | null): string {
+  if (kind === 'over_voltage' && detail?.volts != null && detail.max_volts) {
+    return `The bank read ${overVoltageWords({ volts: detail.volts, maxVolts: detail.max_volts })}. Charge above the rating is not counted in the reserve.`;
+  }
+  return (KIND_LABELS as Record<string, { line: string } | undefined>)[kind]?.line ?? '';
+}
 
 export function kindLabel(kind: string): string {
   return (KIND_LABELS as Record<string, { label: string } | undefined>)[kind]?.label ?? kind.replace(/_/g, ' ');

@@ -52,22 +52,27 @@ export function evaluateNode(input: NodeInput): NodeEvaluation {
   const floorVolts = solveBurstFloor({ bank, converter, load }).volts;
   const rechargeAt = nextRechargeAt({ site, at });
   const windowSeconds = rechargeAt ? (rechargeAt.getTime() - at.getTime()) / 1000 : SEARCH_LIMIT_SECONDS;
-  const result = marginOverWindow({ bank, converter, load, volts, windowSeconds, floorVolts });
+  // A reading above the bank's rated maximum (ns·Vr) is a charger fault, a wrong bank setting or
+  // a bad calibration: the model credits no energy above the rating, so the reserve, the margin
+  // and the brownout are never flattered by it. The energy and the short-circuit current keep
+  // the reading as it is (they are cautions, and higher is the safe side).
+  const creditedVolts = Math.min(volts, bank.maxVolts);
+  const result = marginOverWindow({ bank, converter, load, volts: creditedVolts, windowSeconds, floorVolts });
   const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts });
   return {
     energyJoules: energyJoules({ farads: bank.farads, volts }),
-    usableJoules: usableJoules({ farads: bank.farads, volts, floorVolts: converter.cutoffVolts }),
+    usableJoules: usableJoules({ farads: bank.farads, volts: creditedVolts, floorVolts: converter.cutoffVolts }),
     soc: stateOfCharge({ volts, cutoffVolts: converter.cutoffVolts, maxVolts: bank.maxVolts }),
     burstFloorVolts: floorVolts,
     reserveJoules: result.reserveJoules,
-    loadWatts: bankWatts({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps, volts }),
+    loadWatts: bankWatts({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps, volts: creditedVolts }),
     rechargeAt,
     margin: result.margin,
     brownoutAt: result.brownoutSeconds === null ? null : new Date(at.getTime() + result.brownoutSeconds * 1000),
     state: stateFromMargin({ margin: result.margin, thresholds: input.thresholds ?? DEFAULT_THRESHOLDS }),
     // The margin just computed is the one at the configured interval when that is whole seconds.
     nextReportSeconds: nextReportSeconds({
-      bank: input.bank, converter, load, volts, windowSeconds, floorVolts,
+      bank: input.bank, converter, load, volts: creditedVolts, windowSeconds, floorVolts,
       configuredMargin: Number.isInteger(load.intervalSeconds) ? result.margin : undefined,
     }),
     shortCircuitAmps: shortCircuitAmps({ volts, esrOhms: bank.esrOhms }),

@@ -6,9 +6,13 @@ import type { NodeModelSpec } from './node-spec';
  * A node's latest status from its latest reading. The margin states come from the energy
  * model; `dark`, `silent` and `new` come from the reading history: a node quiet for more than
  * three report intervals is `dark` when it went quiet at or near its burst floor (or after
- * its projected brownout), otherwise `silent`.
+ * its projected brownout), otherwise `silent`. A node whose projected brownout has passed is
+ * `dark` sooner, as soon as it has missed a report since: left `short`, it would keep telling
+ * the deployer about a brownout in the past tense it cannot have.
  */
 export const QUIET_INTERVALS = 3;
+/** Past its projected brownout, quiet for this many expected intervals is a missed report. */
+export const MISSED_REPORT_INTERVALS = 1.5;
 // "Near the floor": within this fraction of the span from the floor to full.
 const NEAR_FLOOR_FRACTION = 0.1;
 
@@ -53,10 +57,12 @@ export function deriveNodeStatus(opts: {
   const expectedInterval = Math.max(spec.load.intervalSeconds, opts.lastAdvisedIntervalSeconds ?? 0, e.nextReportSeconds);
   const quietSeconds = (now.getTime() - latest.t.getTime()) / 1000;
   let state: NodeState = e.state;
-  if (quietSeconds > QUIET_INTERVALS * expectedInterval) {
+  const brownedOutByNow = e.brownoutAt !== null && e.brownoutAt.getTime() <= now.getTime();
+  if (brownedOutByNow && quietSeconds > MISSED_REPORT_INTERVALS * expectedInterval) {
+    state = 'dark';
+  } else if (quietSeconds > QUIET_INTERVALS * expectedInterval) {
     const maxVolts = spec.bank.cellsSeries * spec.bank.cellRatedVolts;
     const nearFloor = latest.volts <= e.burstFloorVolts + NEAR_FLOOR_FRACTION * (maxVolts - e.burstFloorVolts);
-    const brownedOutByNow = e.brownoutAt !== null && e.brownoutAt.getTime() <= now.getTime();
     state = nearFloor || brownedOutByNow ? 'dark' : 'silent';
   }
   return {

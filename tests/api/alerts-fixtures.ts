@@ -107,7 +107,7 @@ export async function startCatcher(name: string, port?: number) {
   return { catcher, dir, port: catcherPort };
 }
 
-/** Messages in a catcher's folder, headers unfolded and bodies decoded from quoted-printable. */
+/** Messages in a catcher's folder, headers unfolded and their RFC 2047 words decoded, bodies decoded from quoted-printable. */
 export function readMessages(dir: string): { headers: string; body: string; raw: string }[] {
   let files: string[] = [];
   try {
@@ -118,13 +118,21 @@ export function readMessages(dir: string): { headers: string; body: string; raw:
   return files.map((f) => {
     const raw = readFileSync(path.join(dir, f), 'utf8');
     const split = raw.indexOf('\r\n\r\n') >= 0 ? raw.indexOf('\r\n\r\n') : raw.indexOf('\n\n');
-    const headers = raw.slice(0, split).replace(/\r?\n[ \t]+/g, ' ');
+    const headers = decodeEncodedWords(raw.slice(0, split).replace(/\r?\n[ \t]+/g, ' '));
     return { headers, body: decodeQuotedPrintable(raw.slice(split)), raw };
   });
 }
 
 export function messagesTo(dir: string, address: string) {
   return readMessages(dir).filter((m) => new RegExp(`^To: .*${address.replace(/[.+]/g, '\\$&')}`, 'mi').test(m.headers));
+}
+
+// RFC 2047 §4.2 "Q" words, as nodemailer writes a subject that is not plain ASCII; the space
+// between two adjacent encoded words is not part of the text (§6.2).
+function decodeEncodedWords(headers: string): string {
+  return headers
+    .replace(/(\?=)[ \t]+(=\?)/g, '$1$2')
+    .replace(/=\?UTF-8\?Q\?([^?]*)\?=/gi, (_, q: string) => decodeQuotedPrintable(q.replace(/_/g, ' ')));
 }
 
 function decodeQuotedPrintable(text: string): string {

@@ -6,7 +6,9 @@ import { runMailPass } from '@/lib/jobs/mail-pass';
 import { runMarginPass } from '@/lib/jobs/margin-pass';
 import { listOrgContacts, listOrgSubscriptions } from '@/lib/db/queries/subscriptions';
 import { localTime } from '@/lib/mail/templates/parts';
-import { createTestOrg, insertReading, messagesTo, secondKnex, SMTP_FROM, startCatcher, TIME_ZONE, voltsForMargin } from './alerts-fixtures';
+import { evaluateNode } from '@/lib/energy';
+import { deleteNode } from '@/lib/db/queries/nodes';
+import { createTestOrg, insertReading, messagesTo, secondKnex, SMTP_FROM, spec, startCatcher, TIME_ZONE, voltsForMargin } from './alerts-fixtures';
 
 // The real runner functions against the test MariaDB and a private SMTP catcher. Time is
 // passed in: 20:00 PST on 19 Nov 2026 at a valley near 47° N, a long night ahead.
@@ -102,6 +104,37 @@ describe('a node driven short by its readings', () => {
     await db()('alerts').where({ node_id: org.nodeId }).update({ status: 'acknowledged', acknowledged_at: at(62) });
     await readingAndPass(org, 130, 0.5);
     expect(await outboxOf(org.orgId)).toHaveLength(2);
+  });
+});
+
+describe('a node reading above its rated maximum', () => {
+  it('opens an over-voltage alert the owner hears of by default, naming the real figure; the reserve counts no charge above the rating', async () => {
+    const org = await createTestOrg(db());
+    await insertReading(db(), org.nodeId, at(-1), 9.5); // on a 2 × 2.7 V = 5.4 V bank
+    const report = await runMarginPass({ knex: db(), now: at(0), appUrl: APP_URL, orgIds: [org.orgId] });
+    expect(report.nodes[0].opened).toEqual(['over_voltage']);
+    const status = await db()('node_status').where({ node_id: org.nodeId }).first();
+    // Derived here: the reserve and margin of the same node at exactly its rating, 5.4 V.
+    const rated = evaluateNode({ ...spec, volts: 5.4, at: at(-1) });
+    expect(status.reserve_joules).toBeCloseTo(rated.reserveJoules, 6);
+    expect(status.margin).toBeCloseTo(rated.margin, 6);
+    expect(status.soc).toBe(1);
+    const outbox = await outboxOf(org.orgId);
+    expect(outbox.map((m) => m.to_address)).toEqual([org.people.owner.email]);
+    expect(outbox[0].subject).toContain('over-voltage (9.50 V, 176 % of its rated 5.40 V)');
+  });
+});
+
+describe('a node retired with an open alert', () => {
+  it('resolves its alerts and drops its waiting mail; later passes leave it alone', async () => {
+    const org = await createTestOrg(db());
+    expect((await readingAndPass(org, 0, 0.5)).opened).toEqual(['reserve_short']);
+    expect((await outboxOf(org.orgId)).map((m) => m.status)).toEqual(['pending']);
+    await deleteNode(org.orgId, org.nodeId);
+    expect((await alertsOf(org.nodeId)).map((a) => a.status)).toEqual(['resolved']);
+    expect(await outboxOf(org.orgId)).toMatchObject([{ status: 'dead', last_error: 'node retired' }]);
+    const report = await runMarginPass({ knex: db(), now: at(1), appUrl: APP_URL, orgIds: [org.orgId] });
+    expect(report.nodes).toEqual([]);
   });
 });
 

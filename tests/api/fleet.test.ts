@@ -19,9 +19,11 @@ describe('GET /api/v1/fleet', () => {
     for (const name of larkspurNames) expect(names).toContain(name);
     for (const n of nodes) {
       expect(NODE_STATES).toContain(n.state);
-      for (const key of ['volts', 'soc', 'reserve_joules', 'margin', 'recharge_at', 'brownout_at', 'last_reading_at', 'load_watts', 'measured_watts', 'draw_ratio', 'time_zone', 'site_name']) {
+      for (const key of ['volts', 'soc', 'reserve_joules', 'margin', 'recharge_at', 'brownout_at', 'last_reading_at', 'load_watts', 'measured_watts', 'modelled_watts', 'draw_ratio', 'max_volts', 'time_zone', 'site_name']) {
         expect(n).toHaveProperty(key);
       }
+      // One modelled draw for a node everywhere: the ratio is measured over the same night's model.
+      expect(n.draw_ratio).toBe(n.measured_watts != null && n.modelled_watts ? n.measured_watts / n.modelled_watts : null);
     }
     // Counts per state add up to the listed nodes.
     expect(Object.values(counts as Record<string, number>).reduce((a, b) => a + b, 0)).toBe(nodes.length);
@@ -35,8 +37,10 @@ describe('GET /api/v1/fleet', () => {
       expect(rankA).toBeLessThanOrEqual(rankB);
       if (rankA === rankB && a.margin != null && b.margin != null) expect(a.margin).toBeLessThanOrEqual(b.margin);
     }
-    // The earliest projected brownout is the soonest among the short nodes (derived here).
-    const shortTimes = nodes.filter((n: { state: string; brownout_at: string | null }) => n.state === 'short' && n.brownout_at).map((n: { brownout_at: string }) => Date.parse(n.brownout_at));
+    // The earliest projected brownout is the soonest still ahead among the short nodes (derived here).
+    const shortTimes = nodes
+      .filter((n: { state: string; brownout_at: string | null }) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) > Date.parse(res.body.generated_at))
+      .map((n: { brownout_at: string }) => Date.parse(n.brownout_at));
     expect(earliest ? Date.parse(earliest.at) : null).toBe(shortTimes.length ? Math.min(...shortTimes) : null);
   });
 

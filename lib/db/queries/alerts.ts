@@ -51,8 +51,8 @@ export async function readingsBetween(knex: Db, nodeId: number, from: Date, to: 
   return rows.map((r) => ({ t: new Date(r.t), v: r.v, vp: r.vp }));
 }
 
-export async function upsertNodeStatus(trx: Db, row: { nodeId: number; orgId: number; status: DerivedStatus; measuredWatts: number | null }) {
-  const values = { node_id: row.nodeId, org_id: row.orgId, ...row.status, measured_watts: row.measuredWatts };
+export async function upsertNodeStatus(trx: Db, row: { nodeId: number; orgId: number; status: DerivedStatus; measuredWatts: number | null; modelledWatts: number | null }) {
+  const values = { node_id: row.nodeId, org_id: row.orgId, ...row.status, measured_watts: row.measuredWatts, modelled_watts: row.modelledWatts };
   await trx('node_status').insert(values).onConflict('node_id').merge();
 }
 

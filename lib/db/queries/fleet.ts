@@ -21,8 +21,12 @@ export interface FleetRow {
   lastReadingAt: Date | null;
   loadWatts: number | null;
   measuredWatts: number | null;
+  /** The draw the load profile predicts for the same night as measuredWatts. */
+  modelledWatts: number | null;
   nextReportSeconds: number | null;
   evaluatedAt: Date | null;
+  /** The bank's rated maximum, ns·Vr. */
+  maxVolts: number;
 }
 
 /** Every live node of the organization with its latest status (volts calibrated, SoC energy-based). */
@@ -37,10 +41,10 @@ export async function listFleet(orgId: number): Promise<FleetRow[]> {
       'st.state', 'st.volts', 'st.soc', 'st.energy_joules as energyJoules', 'st.reserve_joules as reserveJoules',
       'st.burst_floor_volts as burstFloorVolts', 'st.margin',
       'st.recharge_at as rechargeAt', 'st.brownout_at as brownoutAt', 'st.last_reading_at as lastReadingAt',
-      'st.load_watts as loadWatts', 'st.measured_watts as measuredWatts', 'st.next_report_s as nextReportSeconds',
-      'st.evaluated_at as evaluatedAt',
+      'st.load_watts as loadWatts', 'st.measured_watts as measuredWatts', 'st.modelled_watts as modelledWatts', 'st.next_report_s as nextReportSeconds',
+      'st.evaluated_at as evaluatedAt', 'n.cells_series as cellsSeries', 'n.cell_rated_volts as cellRatedVolts',
     );
-  return rows.map((r) => ({ ...r, state: (r.state ?? 'new') as NodeState }));
+  return rows.map(({ cellsSeries, cellRatedVolts, ...r }) => ({ ...r, state: (r.state ?? 'new') as NodeState, maxVolts: cellsSeries * cellRatedVolts }));
 }
 
 /** The fleet as GET /api/v1/fleet answers it: snake_case, RFC 3339 times, most at risk first. */
@@ -53,6 +57,8 @@ export interface FleetNodeWire {
   time_zone: string;
   state: NodeState;
   volts: number | null;
+  /** The bank's rated maximum, ns·Vr (a reading above 98 % of it is over-voltage). */
+  max_volts: number;
   soc: number | null;
   energy_joules: number | null;
   reserve_joules: number | null;
@@ -63,6 +69,8 @@ export interface FleetNodeWire {
   last_reading_at: string | null;
   load_watts: number | null;
   measured_watts: number | null;
+  /** The bank-side draw the settings predict for the night measured_watts was measured over. */
+  modelled_watts: number | null;
   /** measured ÷ modelled bank-side draw; above 1 the node draws more than its settings say. */
   draw_ratio: number | null;
   next_report_s: number | null;
@@ -89,10 +97,10 @@ export function compareRisk(a: { state: NodeState; margin: number | null; name: 
 export function fleetRowToWire(r: FleetRow): FleetNodeWire {
   return {
     id: r.nodeId, name: r.name, purpose: r.purpose, site_id: r.siteId, site_name: r.siteName, time_zone: r.timeZone,
-    state: r.state, volts: r.volts, soc: r.soc, energy_joules: r.energyJoules, reserve_joules: r.reserveJoules,
+    state: r.state, volts: r.volts, max_volts: r.maxVolts, soc: r.soc, energy_joules: r.energyJoules, reserve_joules: r.reserveJoules,
     burst_floor_volts: r.burstFloorVolts, margin: r.margin, recharge_at: iso(r.rechargeAt), brownout_at: iso(r.brownoutAt),
-    last_reading_at: iso(r.lastReadingAt), load_watts: r.loadWatts, measured_watts: r.measuredWatts,
-    draw_ratio: r.measuredWatts != null && r.loadWatts ? r.measuredWatts / r.loadWatts : null,
+    last_reading_at: iso(r.lastReadingAt), load_watts: r.loadWatts, measured_watts: r.measuredWatts, modelled_watts: r.modelledWatts,
+    draw_ratio: r.measuredWatts != null && r.modelledWatts ? r.measuredWatts / r.modelledWatts : null,
     next_report_s: r.nextReportSeconds,
   };
 }
@@ -101,9 +109,10 @@ export async function loadFleetView(orgId: number, now = new Date()): Promise<Fl
   const nodes = (await listFleet(orgId)).map(fleetRowToWire).sort(compareRisk);
   const counts = Object.fromEntries(NODE_STATES.map((s) => [s, 0])) as Record<NodeState, number>;
   for (const n of nodes) counts[n.state] += 1;
-  // Only nodes still reporting and short: a dark node's projected brownout is already behind it.
+  // Only nodes still reporting and short, and only brownouts still ahead: a brownout already
+  // behind us belongs to a node that is (or is about to be called) dark.
   const earliest = nodes
-    .filter((n) => n.state === 'short' && n.brownout_at)
+    .filter((n) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) > now.getTime())
     .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!))[0];
   return {
     generated_at: now.toISOString(),

@@ -69,6 +69,14 @@ export async function deleteNode(orgId: number, nodeId: number): Promise<void> {
     // The name is freed for a replacement node; the old one keeps a unique, dated name.
     await trx('nodes').where({ id: nodeId, org_id: orgId }).update({ deleted_at: new Date(), name: trx.raw("CONCAT(LEFT(name, 90), ' (deleted ', id, ')')") });
     await trx('device_credentials').where({ node_id: nodeId }).whereNull('revoked_at').update({ revoked_at: new Date() });
+    // A retired node's alerts end with it: no pass looks at it again to resolve them, and
+    // its mail still waiting would warn about a node nobody runs.
+    const now = new Date();
+    const unresolved = await trx('alerts').where({ node_id: nodeId }).whereNot('status', 'resolved').pluck('id');
+    if (unresolved.length > 0) {
+      await trx('alerts').whereIn('id', unresolved).update({ status: 'resolved', resolved_at: now, updated_at: now });
+      await trx('email_outbox').whereIn('alert_id', unresolved).where('status', 'pending').update({ status: 'dead', last_error: 'node retired' });
+    }
   });
 }
 

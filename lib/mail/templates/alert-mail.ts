@@ -1,4 +1,4 @@
-import { KIND_INFO, DRAW_ANOMALY_RATIO, type AlertKind } from '../../alerts/kinds';
+import { KIND_INFO, DRAW_ANOMALY_RATIO, overVoltageWords, type AlertKind } from '../../alerts/kinds';
 import type { AlertDetail } from '../../alerts/rules';
 import { escapeHtml, oneLine } from '../outbox';
 import { formatMargin, formatMilliwatts, htmlList, htmlRows, localTime, nodeLink, textRows } from './parts';
@@ -31,7 +31,7 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
     ['Site', oneLine(input.siteName)],
     ['State', detail.state],
     ['Night margin', formatMargin(detail.margin)],
-    ['Bank', typeof detail.volts === 'number' ? `${detail.volts.toFixed(2)} V (max ${detail.max_volts.toFixed(2)} V)` : 'no reading'],
+    ['Bank', typeof detail.volts === 'number' ? `${detail.volts.toFixed(2)} V (${Math.round((100 * detail.volts) / detail.max_volts)} % of the rated ${detail.max_volts.toFixed(2)} V)` : 'no reading'],
     ['Projected brownout', brownout ?? 'none before recharge'],
     ['Recharge', recharge ?? 'not within 7 days'],
     ['Last reading', localTime(detail.last_reading_at, timeZone) ?? 'none'],
@@ -81,7 +81,7 @@ function subjectTail(input: AlertMailInput, brownout: string | null): string {
     case 'not_charging':
       return 'not charging on a clear day';
     case 'over_voltage':
-      return `over-voltage (${d.volts?.toFixed(2) ?? '?'} V)`;
+      return typeof d.volts === 'number' && d.max_volts ? `over-voltage (${overVoltageWords({ volts: d.volts, maxVolts: d.max_volts })})` : 'over-voltage';
   }
 }
 

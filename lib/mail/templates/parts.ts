@@ -17,7 +17,7 @@ export function localTime(iso: string | Date | null | undefined, timeZone: strin
 }
 
 export function formatMargin(margin: number | null | undefined): string {
-  return typeof margin === 'number' && Number.isFinite(margin) ? margin.toFixed(2) : 'n/a';
+  return typeof margin === 'number' && Number.isFinite(margin) ? `${margin.toFixed(2)}×` : 'n/a';
 }
 
 export function formatMilliwatts(watts: number | null | undefined): string | null {

@@ -40,4 +40,18 @@ describe('evaluateNode', () => {
     const strict = evaluateNode({ bank, converter, load, site, volts: 5.4, at, thresholds: { steady: full.margin + 1, thin: full.margin - 0.1 } });
     expect(strict.state).toBe('thin');
   });
+
+  it('credits no energy above the rated maximum (common practice: a bank is never charged past ns·Vr)', () => {
+    // 2 series cells of 2.7 V: rated 5.4 V. A 9.5 V reading is a fault, not a fuller bank.
+    const rated = evaluateNode({ bank, converter, load, site, volts: 5.4, at });
+    const over = evaluateNode({ bank, converter, load, site, volts: 9.5, at });
+    expect(over.reserveJoules).toBeCloseTo(rated.reserveJoules, 9);
+    expect(over.margin).toBeCloseTo(rated.margin, 9);
+    expect(over.usableJoules).toBeCloseTo(rated.usableJoules, 9);
+    expect(over.loadWatts).toBeCloseTo(rated.loadWatts, 15);
+    expect(over.soc).toBe(1);
+    // The cautions keep the reading as it is: energy ½CV² and the short-circuit current V/ESR.
+    expect(over.energyJoules).toBeCloseTo(0.5 * 150 * 9.5 ** 2, 9);
+    expect(over.shortCircuitAmps).toBeCloseTo(9.5 / ((2 * 0.02) / 3), 9);
+  });
 });

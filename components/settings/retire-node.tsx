@@ -1,0 +1,44 @@
+'use client';
+
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { apiFetch } from '@/lib/client/api';
+
+/**
+ * Retire (delete) a node with an inline confirmation: it leaves the fleet, its device
+ * credentials are revoked at once and its name is freed for a replacement.
+ */
+export function RetireNode({ nodeId, name }: { nodeId: number; name: string }) {
+  const router = useRouter();
+  const [asking, setAsking] = useState(false);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  async function retire() {
+    setBusy(true);
+    const res = await apiFetch(`/api/v1/nodes/${nodeId}`, { method: 'DELETE' });
+    setBusy(false);
+    if (!res.ok) return setError(res.problem.detail ?? res.problem.title);
+    router.push('/fleet');
+    router.refresh();
+  }
+  return (
+    <div className="mt-8 max-w-2xl rounded-xl border border-dusk-700 p-4" data-testid="node-retire-panel">
+      <h2 className="text-sm font-bold">Retire this node</h2>
+      <p className="mt-1 text-sm text-ink-muted">
+        For a node taken out of the field. It leaves the fleet and the alerts, and its device credentials stop working at once.
+      </p>
+      {asking ? (
+        <div role="group" aria-label={`Confirm retiring ${name}`} className="mt-3">
+          <p className="text-sm">Retire “{name}”? The device can no longer post readings, and this cannot be undone from the screens.</p>
+          <div className="mt-2 flex gap-2">
+            <button type="button" onClick={retire} disabled={busy} autoFocus className="rounded-md bg-hazard px-3 py-1.5 text-sm font-bold text-dusk-950 disabled:opacity-60" data-testid="node-retire-confirm">Retire now</button>
+            <button type="button" onClick={() => { setAsking(false); setError(null); }} className="rounded-md border border-dusk-600 px-3 py-1.5 text-sm hover:bg-dusk-800">Keep it</button>
+          </div>
+        </div>
+      ) : (
+        <button type="button" onClick={() => setAsking(true)} className="mt-3 rounded-md border border-hazard px-3 py-1.5 text-sm text-hazard hover:bg-dusk-800" data-testid="node-retire">Retire node…</button>
+      )}
+      {error ? <p role="alert" className="mt-2 text-sm text-hazard" data-testid="node-retire-error">{error}</p> : null}
+    </div>
+  );
+}
