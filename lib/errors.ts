@@ -48,8 +48,32 @@ export const problems = {
 export function pointersFromZod(error: ZodError, prefix = ''): InvalidParam[] {
   return error.issues.map((issue) => ({
     pointer: prefix + (issue.path.length ? '/' + issue.path.map((p) => String(p).replace(/~/g, '~0').replace(/\//g, '~1')).join('/') : ''),
-    detail: issue.message,
+    detail: plainWords(issue),
   }));
+}
+
+type Issue = ZodError['issues'][number];
+
+/**
+ * A range check written without its own message gets zod's default ("Too small: expected
+ * number to be >=1"), which reads like a stack trace on a form. Those become plain words;
+ * every message a schema wrote itself is kept as it is.
+ */
+function plainWords(issue: Issue): string {
+  const { message } = issue;
+  if (issue.code === 'too_small' && message.startsWith('Too small')) {
+    const min = Number(issue.minimum);
+    if (issue.origin === 'string') return `At least ${min} character${min === 1 ? '' : 's'}.`;
+    if (issue.origin === 'array') return `At least ${min} item${min === 1 ? '' : 's'}.`;
+    return issue.inclusive === false ? `Must be above ${min}.` : `Must be at least ${min}.`;
+  }
+  if (issue.code === 'too_big' && message.startsWith('Too big')) {
+    const max = Number(issue.maximum);
+    if (issue.origin === 'string') return `At most ${max} character${max === 1 ? '' : 's'}.`;
+    if (issue.origin === 'array') return `At most ${max} item${max === 1 ? '' : 's'}.`;
+    return issue.inclusive === false ? `Must be below ${max}.` : `Must be at most ${max}.`;
+  }
+  return message;
 }
 
 export function problemResponse(error: unknown): Response {

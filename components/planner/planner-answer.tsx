@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { formatDuration } from '@/components/fleet/duration';
 import { formatInTimeZone } from '@/lib/format/time';
+import { SEARCH_LIMIT_SECONDS } from '@/lib/energy/sun';
 import { formatJoules, formatMargin, formatVolts, formatWattHours } from '@/lib/format/units';
 import { DischargeChart } from './discharge-chart';
 import type { PlannerReply } from './planner-types';
@@ -16,6 +17,8 @@ export function PlannerAnswer({ answer, busy, timeZone, cutoffVolts }: { answer:
   }
   const b = answer.bank;
   const found = answer.cells_parallel != null;
+  // The sun search looks 7 days ahead; a night that long is a polar night the plan cuts short.
+  const polar = answer.night_seconds >= SEARCH_LIMIT_SECONDS;
   return (
     <section className="flex flex-col gap-4 rounded-xl border border-dusk-700 bg-dusk-900 p-4" aria-live="polite" data-testid="planner-answer">
       <div>
@@ -27,9 +30,15 @@ export function PlannerAnswer({ answer, busy, timeZone, cutoffVolts }: { answer:
             : `No count up to ${b.cells_parallel} reaches the target margin; the figures below are for ${b.cells_parallel} in parallel. Stretch the report interval, lower the load or pick a larger cell.`}
         </p>
       </div>
+      {polar ? (
+        <p role="note" className="rounded-lg border border-hazard/70 bg-dusk-950 px-3 py-2 text-sm" data-testid="planner-polar-night">
+          <strong className="text-hazard">Polar night.</strong> Here the sun stays below the recharge elevation for more than 7 days, and this plan
+          covers only the first 7. No bank of this size carries a node through a polar winter: plan for it to sleep until the sun returns, or give it another source.
+        </p>
+      ) : null}
       <dl className="grid grid-cols-2 gap-x-4 gap-y-3 text-sm sm:grid-cols-3">
         <Figure term="Energy at full">{formatJoules(answer.energy_full_joules)}<Sub>{formatWattHours(answer.energy_full_joules)}</Sub></Figure>
-        <Figure term="Night length">{formatDuration(answer.night_seconds)}
+        <Figure term="Night length">{polar ? 'over 7 days' : formatDuration(answer.night_seconds)}
           <Sub>{answer.night_start ? <>from <span suppressHydrationWarning>{formatInTimeZone(new Date(answer.night_start), timeZone, 'd MMM HH:mm')}</span></> : 'no sunset'}</Sub>
         </Figure>
         <Figure term="Carried without sun">{formatDuration(answer.window_seconds)}<Sub>night + extra days</Sub></Figure>

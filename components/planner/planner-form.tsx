@@ -3,7 +3,7 @@
 import { useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
-import { apiFetch, fieldErrors } from '@/lib/client/api';
+import { apiFetch, fieldErrors, inFieldUnits } from '@/lib/client/api';
 import { ChargerCautions } from './charger-cautions';
 import { PlannerAnswer } from './planner-answer';
 import { ALL_FIELDS, CHARGER_FIELDS, FIELD_GROUPS, plannerBodyFromValues, SITE_FIELDS, type PlannerField } from './planner-fields';
@@ -40,7 +40,9 @@ export function PlannerForm({ sites }: { sites: PlannerSite[] }) {
     const res = await apiFetch<PlannerReply>('/api/v1/planner', { method: 'POST', body: plannerBodyFromValues({ values, date }) });
     setBusy(false);
     if (!res.ok) {
-      setErrors(fieldErrors(res.problem));
+      const found = fieldErrors(res.problem);
+      for (const f of ALL_FIELDS) if (found[f.path]) found[f.path] = inFieldUnits(found[f.path], f);
+      setErrors(found);
       setMessage(res.problem.errors?.length ? 'Some values need a look: see the fields marked above.' : (res.problem.detail ?? res.problem.title));
       return;
     }

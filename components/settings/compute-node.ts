@@ -30,6 +30,28 @@ export function computeBankFigures(bank: unknown): BankFigures | null {
   };
 }
 
+/**
+ * Values the server accepts but a practitioner would look at twice. Cell ratings: electric
+ * double-layer cells are rated about 2.3–3.0 V and lithium-ion capacitors about 3.8–4.2 V
+ * (common practice, from memory); nothing sold as one cell is rated near 10 V.
+ */
+export const EDLC_USUAL_MAX_VOLTS = 3.0;
+export const ONE_CELL_MAX_VOLTS = 4.2;
+
+export function bankNotes(bank: unknown): string[] {
+  const parsed = bankSchema.safeParse(bank);
+  if (!parsed.success) return [];
+  const b = parsed.data;
+  const notes: string[] = [];
+  if (b.cell_rated_volts > ONE_CELL_MAX_VOLTS) {
+    notes.push(`${b.cell_rated_volts} V is more than one supercapacitor cell is rated for. For a module, enter its cells in series and one cell's rating.`);
+  } else if (b.cell_rated_volts > EDLC_USUAL_MAX_VOLTS) {
+    notes.push(`${b.cell_rated_volts} V is above a double-layer cell's usual 2.3–3.0 V: right for a lithium-ion capacitor; check the maker's rating.`);
+  }
+  if (b.cell_esr_ohms === 0) notes.push('An ESR of 0 Ω leaves the short-circuit current without a limit in these figures: enter the datasheet ESR.');
+  return notes;
+}
+
 export function computeLoadFigures(body: { bank?: unknown; converter?: unknown; load?: unknown }): LoadFigures | null {
   const b = bankSchema.safeParse(body.bank);
   const c = converterSchema.safeParse(body.converter);

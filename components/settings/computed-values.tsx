@@ -11,7 +11,7 @@ function Figure({ label, value, testId }: { label: string; value: string; testId
   );
 }
 
-export function BankFiguresPanel({ figures, heading = 'Computed as you type' }: { figures: BankFigures | null; heading?: string }) {
+export function BankFiguresPanel({ figures, notes = [], heading = 'Computed as you type' }: { figures: BankFigures | null; notes?: string[]; heading?: string }) {
   return (
     <section aria-label="Bank, computed" aria-live="polite" className="rounded-lg border border-ember/40 bg-dusk-950 p-3" data-testid="bank-figures">
       <h3 className="text-xs font-bold uppercase tracking-wider text-ember">{heading}</h3>
@@ -24,6 +24,11 @@ export function BankFiguresPanel({ figures, heading = 'Computed as you type' }: 
           <Figure label="Bank leakage" value={formatAmps(figures.leakageAmps)} testId="computed-leakage" />
         </dl>
       ) : <p className="mt-2 text-sm text-ink-muted">Complete the bank inputs to see its figures.</p>}
+      {notes.length ? (
+        <ul className="mt-2 space-y-1 border-t border-dusk-700 pt-2 text-sm text-hazard" data-testid="bank-notes">
+          {notes.map((n) => <li key={n}>{n}</li>)}
+        </ul>
+      ) : null}
     </section>
   );
 }

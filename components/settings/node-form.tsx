@@ -7,7 +7,7 @@ import { Field } from '@/components/ui/field';
 import { apiFetch, fieldErrors } from '@/lib/client/api';
 import type { NodeBody } from '@/lib/schemas/node';
 import { BankCaution } from './bank-caution';
-import { computeBankFigures, computeLoadFigures } from './compute-node';
+import { bankNotes, computeBankFigures, computeLoadFigures } from './compute-node';
 import { BankFiguresPanel, LoadFiguresPanel } from './computed-values';
 import { EfficiencyInput } from './efficiency-input';
 import { BANK_INPUTS, bodyFromForm, CONVERTER_INPUTS, formFromBody, LOAD_INPUTS, OTHER_INPUTS } from './node-fields';
@@ -71,7 +71,7 @@ export function NodeForm({ nodeId, initial, sites }: { nodeId?: number; initial:
         </div>
       </Section>
 
-      <Section title="Bank" aside={<><BankFiguresPanel figures={bankFigures} /><BankCaution shortCircuitAmps={bankFigures?.shortCircuitAmps ?? null} /></>}>
+      <Section title="Bank" aside={<><BankFiguresPanel figures={bankFigures} notes={bankNotes(body.bank)} /><BankCaution shortCircuitAmps={bankFigures?.shortCircuitAmps ?? null} /></>}>
         <div className="grid gap-3 sm:grid-cols-2"><NumberInputs inputs={BANK_INPUTS} values={values} errors={errors} onChange={set} /></div>
       </Section>
 

@@ -45,7 +45,10 @@ function Block({ title, children }: { title: string; children: React.ReactNode }
 
 // Small currents read better in µA or mA beside the stored amps.
 function withReadable(value: number, unit: string): string {
-  return unit === 'A' && value > 0 && value < 1 ? `${value} A (${formatAmps(value)})` : `${value} ${unit}`;
+  if (unit === 'A' && value > 0 && value < 1) return `${value} A (${formatAmps(value)})`;
+  // Counted units (cells, strings) are plural words: "1 string", "2 strings".
+  if (value === 1 && (unit === 'cells' || unit === 'strings')) return `1 ${unit.slice(0, -1)}`;
+  return `${value} ${unit}`;
 }
 
 function Row({ label, value, figures = false }: { label: string; value: string; figures?: boolean }) {

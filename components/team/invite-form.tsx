@@ -36,7 +36,7 @@ export function InviteForm() {
       <Field id="invite-email" name="email" type="email" label="E-mail" error={errors.email} required />
       <div className="flex flex-col gap-1.5">
         <label htmlFor="invite-role" className="text-sm font-bold">Role</label>
-        <select id="invite-role" name="role" defaultValue="viewer" className="rounded-md border border-dusk-600 bg-dusk-950 px-3 py-2">
+        <select id="invite-role" name="role" defaultValue="viewer" className="w-full min-w-0 rounded-md border border-dusk-600 bg-dusk-950 px-3 py-2">
           <option value="viewer">viewer — reads everything, changes nothing</option>
           <option value="deployer">deployer — sites, nodes, credentials, imports, bench</option>
           <option value="owner">owner — everything, members included</option>

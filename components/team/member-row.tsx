@@ -20,7 +20,7 @@ export function MemberRow({ member, isSelf }: { member: { membershipId: number; 
 
   return (
     <li className="flex flex-wrap items-center gap-3 border-t border-dusk-800 py-3" data-testid="member-row">
-      <div className="min-w-48 flex-1">
+      <div className="min-w-0 flex-1 basis-48">
         <p className="font-bold">{member.name || member.email}{isSelf ? <span className="ml-2 text-xs text-ink-faint">(you)</span> : null}</p>
         <p className="text-sm text-ink-muted">{member.email}</p>
       </div>

@@ -27,6 +27,16 @@ export async function apiFetch<T = unknown>(path: string, init: { method?: strin
 }
 
 /** Errors by field name (the last pointer segment joined with dots), plus a general message. */
+/**
+ * A server message about a field the form shows in other units (a % field sent as a fraction):
+ * "Must be at most 1." becomes "Must be at most 100 %."; any other message is kept.
+ */
+export function inFieldUnits(message: string, { scale, unit }: { scale: number; unit: string }): string {
+  if (scale === 1) return message;
+  if (/^Enter a number \(.*\)\.$/.test(message)) return `Enter a number (${unit}).`;
+  return message.replace(/^(Must be (?:at most|at least|above|below)) (-?\d+(?:\.\d+)?)\.$/, (_, words: string, n: string) => `${words} ${Number((Number(n) / scale).toPrecision(12))} ${unit}.`);
+}
+
 export function fieldErrors(problem: Problem): Record<string, string> {
   const out: Record<string, string> = {};
   for (const e of problem.errors ?? []) out[e.pointer.replace(/^\//, '').replace(/\//g, '.') || '_'] = e.detail;

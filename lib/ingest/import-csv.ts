@@ -75,7 +75,7 @@ export async function importCsvStream(opts: { orgId: number; nodeId: number; use
         continue;
       }
       const { reading, problems } = normalizeReading(obj, '', receivedAt);
-      if (!reading) reject(lineNo, problems.map((p) => `${p.pointer.replace(/^\//, '') || 'line'}: ${p.detail}`).join('; '));
+      if (!reading) reject(lineNo, problems.map(namedProblem).join('; '));
       else batch.push(reading);
       if (batch.length >= BATCH) await flush();
     }
@@ -104,4 +104,10 @@ export async function listImports(orgId: number, nodeId: number) {
   const rows = await db()('imports as i').leftJoin('users as u', 'u.id', 'i.uploaded_by').where({ 'i.org_id': orgId, 'i.node_id': nodeId }).orderBy('i.id', 'desc').limit(50)
     .select('i.id', 'i.filename', 'i.status', 'i.lines', 'i.accepted', 'i.duplicates', 'i.rejected', 'i.report', 'i.created_at as createdAt', 'i.finished_at as finishedAt', 'u.email as uploadedBy');
   return rows.map((r) => ({ ...r, rejections: typeof r.report === 'string' ? JSON.parse(r.report) : r.report ?? [], report: undefined }));
+}
+
+/** "t: Not a real date and time."; a detail that already starts with its field's name stays as it is. */
+function namedProblem(p: { pointer: string; detail: string }): string {
+  const field = p.pointer.replace(/^\//, '') || 'line';
+  return p.detail.startsWith(`${field} `) ? p.detail : `${field}: ${p.detail}`;
 }

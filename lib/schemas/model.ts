@@ -7,7 +7,9 @@ import type { InvalidParam } from '../errors';
  * evaluate route, the node settings and their forms. Cross-field checks (cutoff below the
  * bank's maximum …) come from lib/energy's checkNodeSpecs.
  */
-const finite = (unit: string) => z.number({ message: `Enter a number (${unit}).` }).finite();
+// The message only for a missing or non-number value: given to z.number() as a plain message,
+// zod 4 would put it on every failed range check too ("Enter a number (°)." for 95°).
+const finite = (unit: string) => z.number({ error: (issue) => (issue.code === 'invalid_type' ? `Enter a number (${unit}).` : undefined) }).finite();
 const positive = (unit: string) => finite(unit).positive(`Must be above 0 ${unit}.`);
 const nonNegative = (unit: string) => finite(unit).min(0, `Must not be negative (${unit}).`);
 
@@ -44,8 +46,8 @@ export const loadSchema = z.object({
 }).strict();
 
 export const siteModelSchema = z.object({
-  lat: finite('°').min(-90).max(90),
-  lon: finite('°').min(-180).max(180),
+  lat: finite('°').min(-90, 'Latitude is between −90° and 90°.').max(90, 'Latitude is between −90° and 90°.'),
+  lon: finite('°').min(-180, 'Longitude is between −180° and 180°.').max(180, 'Longitude is between −180° and 180°.'),
   recharge_elevation_deg: finite('°').min(-18).max(60).default(-0.833),
 }).strict();
 

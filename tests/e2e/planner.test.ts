@@ -52,4 +52,21 @@ describe('the planner page', () => {
     // Chromium logs each 4xx it receives; only the 422 asked for here may appear.
     expect(consoleErrors.filter((e) => !/status of 422/.test(e))).toEqual([]);
   });
+
+  it('says a % bound in %, and says so when a polar night is longer than the plan (75° N in December)', async () => {
+    const { page } = await newPage(browser);
+    await signInThroughForm(page, 'deployer@larkspur.example');
+    await page.goto('/planner');
+    await page.getByLabel('Charger efficiency (%)').fill('150');
+    await page.getByTestId('planner-submit').click();
+    await page.locator('#planner-charger_efficiency-error').waitFor({ timeout: 30_000 });
+    await expect(page.locator('#planner-charger_efficiency-error').textContent()).resolves.toBe('Must be at most 100 %.');
+    await page.getByLabel('Charger efficiency (%)').fill('75');
+    await page.getByLabel('Latitude (° N)').fill('75');
+    await page.getByLabel('Night of (site date)').fill('2026-12-21');
+    await page.getByTestId('planner-submit').click();
+    await page.getByTestId('planner-polar-night').waitFor({ timeout: 30_000 });
+    await expect(page.getByTestId('planner-answer').textContent()).resolves.toContain('over 7 days');
+    await screenshot(page, 'planner-polar-night');
+  });
 });

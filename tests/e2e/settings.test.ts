@@ -129,6 +129,26 @@ describe('node settings form in Chromium', () => {
     await page.getByTestId('site-readonly').waitFor();
     expect(await editControls()).toBe(0);
     expect(failures).toEqual([]);
+    // Another organization's site, like a missing one: a real 404 before anything streams.
+    const foreign = await db()('sites as s').join('organizations as o', 'o.id', 's.org_id').whereNot('o.slug', 'larkspur-hollow').first('s.id', 's.name');
+    expect((await page.goto(`/sites/${foreign.id}`))?.status()).toBe(404);
+    await page.getByTestId('site-not-found').waitFor();
+    expect(await page.content()).not.toContain(foreign.name);
+    expect((await page.goto('/sites/99999999'))?.status()).toBe(404);
     expect(consoleErrors.filter((e) => !e.startsWith('Failed to load resource'))).toEqual([]);
+  });
+
+  it('the team page fits a 390 px phone: no sideways scroll, every Remove button on screen', async () => {
+    const { page, consoleErrors } = await newPage(browser, { width: 390, height: 844 });
+    await signInThroughForm(page, 'owner@larkspur.example');
+    await page.goto('/team');
+    await page.getByTestId('member-row').first().waitFor();
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    for (const box of await page.getByRole('button', { name: 'Remove' }).evaluateAll((els) => els.map((e) => e.getBoundingClientRect().right))) {
+      expect(box).toBeLessThanOrEqual(390);
+    }
+    await screenshot(page, 'team-390');
+    expect(consoleErrors).toEqual([]);
   });
 });

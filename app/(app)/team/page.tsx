@@ -18,7 +18,7 @@ export default async function TeamPage() {
   }
   const [members, invitations] = await Promise.all([listMembersOfOrg(member.orgId), listInvitations(member.orgId)]);
   return (
-    <section className="grid gap-8 lg:grid-cols-[3fr_2fr]">
+    <section className="grid grid-cols-1 gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
       <div>
         <h1 className="text-2xl font-bold">Team</h1>
         <p className="mt-1 text-sm text-ink-muted">Role changes and removals take effect on the member&apos;s next request.</p>

@@ -1,25 +1,14 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
 import { DeleteSite } from '@/components/sites/delete-site';
 import { SiteForm } from '@/components/sites/site-form';
-import { currentMember } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
-import { getSiteWire } from '@/lib/db/queries/sites';
-import { ProblemError } from '@/lib/errors';
+import { loadSitePage } from './load-site';
 
 export const metadata: Metadata = { title: 'Site' };
 
 export default async function SitePage({ params }: { params: Promise<{ siteId: string }> }) {
-  const member = await currentMember();
-  if (!member) redirect('/sign-in');
-  const raw = (await params).siteId;
-  const siteId = Number(raw);
-  if (!Number.isSafeInteger(siteId) || siteId <= 0 || String(siteId) !== raw) notFound();
-  const site = await getSiteWire(member.orgId, siteId).catch((e) => {
-    if (e instanceof ProblemError && e.status === 404) notFound();
-    throw e;
-  });
+  const { member, site } = await loadSitePage((await params).siteId);
   const { id: _id, live_nodes: nodes, ...body } = site;
   return (
     <section className="flex flex-col gap-4">

@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { bankNotes } from '@/components/settings/compute-node';
+import { inFieldUnits } from '@/lib/client/api';
+import { pointersFromZod } from '@/lib/errors';
+import { bankSchema, loadSchema, siteModelSchema } from '@/lib/schemas/model';
+
+// Our own wording rules for form errors (no outside source).
+const detailsOf = (result: { success: boolean; error?: unknown }) =>
+  result.success ? [] : pointersFromZod(result.error as Parameters<typeof pointersFromZod>[0]).map((p) => `${p.pointer} ${p.detail}`);
+
+describe('field errors in plain words', () => {
+  it('a range check without its own message reads as words, not as the validator’s default', () => {
+    const load = { sleep_amps: 0, awake_seconds: 1, awake_amps: 0.01, burst_seconds: 0, burst_amps: 0, interval_seconds: 0, max_interval_seconds: 600 };
+    expect(detailsOf(loadSchema.safeParse(load))).toEqual(['/interval_seconds Must be at least 1.']);
+    const bank = { cells_series: 2, cells_parallel: 1, cell_farads: 1, cell_rated_volts: 11, cell_esr_ohms: 0.1, cell_leakage_amps: 0 };
+    expect(detailsOf(bankSchema.safeParse(bank))).toEqual(['/cell_rated_volts Must be at most 10.']);
+  });
+
+  it('a number out of range is not called “not a number”; a missing one is', () => {
+    expect(detailsOf(siteModelSchema.safeParse({ lat: 95, lon: 0 }))).toEqual(['/lat Latitude is between −90° and 90°.']);
+    expect(detailsOf(siteModelSchema.safeParse({ lat: 'north', lon: 0 }))).toEqual(['/lat Enter a number (°).']);
+  });
+
+  it('a bound sent as a fraction is said in the field’s own unit', () => {
+    expect(inFieldUnits('Must be at most 1.', { scale: 0.01, unit: '%' })).toBe('Must be at most 100 %.');
+    expect(inFieldUnits('Must be above 0.', { scale: 0.01, unit: '%' })).toBe('Must be above 0 %.');
+    expect(inFieldUnits('Must be at most 10.', { scale: 1e-6, unit: 'µA' })).toBe('Must be at most 10000000 µA.');
+    expect(inFieldUnits('Enter a number (0..1).', { scale: 0.01, unit: '%' })).toBe('Enter a number (%).');
+    expect(inFieldUnits('Whole cells only.', { scale: 0.01, unit: '%' })).toBe('Whole cells only.');
+    expect(inFieldUnits('Must be at most 90.', { scale: 1, unit: '°' })).toBe('Must be at most 90.');
+  });
+});
+
+describe('bank notes beside the node form', () => {
+  const bank = { cells_series: 2, cells_parallel: 1, cell_farads: 25, cell_rated_volts: 2.7, cell_esr_ohms: 0.03, cell_leakage_amps: 12e-6 };
+  it('a usual double-layer cell gets none (common practice: 2.3–3.0 V a cell)', () => {
+    expect(bankNotes(bank)).toEqual([]);
+  });
+  it('a module voltage typed as a cell rating, a lithium-ion capacitor, and an ESR of 0 Ω are pointed out', () => {
+    expect(bankNotes({ ...bank, cell_rated_volts: 9 })).toEqual([expect.stringMatching(/more than one supercapacitor cell/)]);
+    expect(bankNotes({ ...bank, cell_rated_volts: 3.8 })).toEqual([expect.stringMatching(/lithium-ion capacitor/)]);
+    expect(bankNotes({ ...bank, cell_esr_ohms: 0 })).toEqual([expect.stringMatching(/ESR of 0 Ω/)]);
+    expect(bankNotes({ ...bank, cell_rated_volts: 'x' })).toEqual([]);
+  });
+});
