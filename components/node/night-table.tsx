@@ -35,7 +35,7 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
         <>
           <div className="mt-3 hidden overflow-x-auto md:block">
             <table className="w-full text-left text-sm">
-              <caption className="sr-only">Each night: dusk and dawn, stored energy at both, lowest volts, measured and modelled draw, margin at dusk</caption>
+              <caption className="sr-only">Each night: dusk and dawn, stored energy at both, lowest volts, measured and modelled draw, margin at dusk, and whether the node reported through it</caption>
               <thead className="text-[11px] uppercase tracking-wider text-ink-faint">
                 <tr>
                   <th scope="col" className="py-2 pr-3">Night of</th>
@@ -44,7 +44,8 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                   <th scope="col" className="pr-3 text-right">Energy dawn (J)</th>
                   <th scope="col" className="pr-3 text-right">Min (V)</th>
                   <th scope="col" className="pr-3 text-right">Draw measured / model (W)</th>
-                  <th scope="col" className="text-right">Margin at dusk</th>
+                  <th scope="col" className="pr-3 text-right">Margin at dusk</th>
+                  <th scope="col">Outcome</th>
                 </tr>
               </thead>
               <tbody>
@@ -53,10 +54,11 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                     <th scope="row" className="py-2 pr-3 font-bold">{day(n.dusk_at)}{n.complete ? '' : <span className="ml-2 text-xs font-normal text-tide">tonight</span>}</th>
                     <td className="figures pr-3">{t(n.dusk_at)} → {t(n.dawn_at)}</td>
                     <td className="figures pr-3 text-right">{formatJoules(n.dusk_energy_joules)}</td>
-                    <td className="figures pr-3 text-right">{formatJoules(n.dawn_energy_joules)}</td>
+                    <td className="figures pr-3 text-right"><DawnEnergy n={n} /></td>
                     <td className={`figures pr-3 text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</td>
                     <td className="figures pr-3 text-right"><Draw n={n} /></td>
-                    <td className={`figures text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</td>
+                    <td className={`figures pr-3 text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</td>
+                    <td className="text-sm"><Outcome n={n} t={t} /></td>
                   </tr>
                 ))}
               </tbody>
@@ -71,10 +73,11 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                 </div>
                 <dl className="figures mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
                   <dt className="font-sans text-ink-faint">Energy dusk</dt><dd className="text-right">{formatJoules(n.dusk_energy_joules)}</dd>
-                  <dt className="font-sans text-ink-faint">Energy dawn</dt><dd className="text-right">{formatJoules(n.dawn_energy_joules)}</dd>
+                  <dt className="font-sans text-ink-faint">{n.complete ? 'Energy dawn' : 'Energy now'}</dt><dd className="text-right"><DawnEnergy n={n} /></dd>
                   <dt className="font-sans text-ink-faint">Lowest</dt><dd className={`text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</dd>
                   <dt className="font-sans text-ink-faint">Draw meas. / model</dt><dd className="text-right"><Draw n={n} /></dd>
                   <dt className="font-sans text-ink-faint">Margin at dusk</dt><dd className={`text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</dd>
+                  <dt className="font-sans text-ink-faint">Outcome</dt><dd className="text-right font-sans"><Outcome n={n} t={t} /></dd>
                 </dl>
               </li>
             ))}
@@ -83,6 +86,19 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
       ) : null}
     </section>
   );
+}
+
+/** Before dawn the last reading is not the dawn's: it is said as "so far". */
+function DawnEnergy({ n }: { n: NightRowWire }) {
+  if (n.complete || n.dawn_energy_joules === null) return <>{formatJoules(n.dawn_energy_joules)}</>;
+  return <>{formatJoules(n.dawn_energy_joules)} <span className="block text-xs text-ink-faint">so far</span></>;
+}
+
+/** What happened, beside what the model said at dusk: a night the node did not report through says so. */
+function Outcome({ n, t }: { n: NightRowWire; t: (s: number | null) => string }) {
+  if (n.readings === 0) return <span className="text-ink-faint">no readings</span>;
+  if (n.quiet_from !== null) return <span className="font-bold text-hazard" data-testid="night-quiet">quiet from {t(n.quiet_from)}</span>;
+  return <span className="text-ink-muted">{n.complete ? 'reported all night' : 'reporting'}</span>;
 }
 
 function Draw({ n }: { n: NightRowWire }) {

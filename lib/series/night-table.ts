@@ -1,5 +1,6 @@
 import { drawOverWindow } from '../alerts/night-draw';
 import { energyJoules, modelBank, nightMargin, type VoltageSample } from '../energy';
+import { QUIET_INTERVALS } from '../status/derive-status';
 import type { NodeModelSpec } from '../status/node-spec';
 import type { NightRowWire } from './wire';
 
@@ -8,7 +9,9 @@ import type { NightRowWire } from './wire';
  * (the first and last reading inside the night), its lowest volts, the draw measured from the
  * slope of ½·C·V² over the night against the modelled draw at the cadence seen (the same fit
  * the draw-anomaly alert uses), and the margin the model gave at dusk for that night's length.
- * Samples carry calibrated volts; instants leave as Unix seconds.
+ * `quiet_from` is where the node fell silent inside the night (a gap of more than three report
+ * intervals, up to dawn or to now), so a night the model called safe and the node did not
+ * survive reads as such. Samples carry calibrated volts; instants leave as Unix seconds.
  */
 export function buildNightRows({
   spec,
@@ -29,6 +32,7 @@ export function buildNightRows({
     const last = inside[inside.length - 1];
     const draw = drawOverWindow({ spec, samples: inside });
     const margin = first ? nightMargin({ ...spec, volts: first.volts, at: new Date(ms(first.t)), rechargeAt: night.end }) : null;
+    const quietFrom = firstSilence({ times: inside.map((x) => ms(x.t)), until: Math.min(night.end.getTime(), now.getTime()), intervalSeconds: spec.load.intervalSeconds });
     return {
       dusk_at: night.start.getTime() / 1000,
       dawn_at: night.end.getTime() / 1000,
@@ -46,6 +50,7 @@ export function buildNightRows({
       draw_ratio: draw && Number.isFinite(draw.ratio) ? draw.ratio : null,
       margin_at_dusk: margin && Number.isFinite(margin.margin) ? margin.margin : null,
       projected_brownout_at: margin?.brownoutAt ? margin.brownoutAt.getTime() / 1000 : null,
+      quiet_from: quietFrom === null ? null : quietFrom / 1000,
     };
   });
 }
@@ -53,6 +58,21 @@ export function buildNightRows({
 /** The last `count` nights that have begun by `now`, newest first; tonight (still dark) included. */
 export function lastNights({ windows, now, count }: { windows: { start: Date; end: Date }[]; now: Date; count: number }) {
   return windows.filter((w) => w.start.getTime() <= now.getTime()).slice(-count).reverse();
+}
+
+/**
+ * The reading after which the node went quiet for more than QUIET_INTERVALS report intervals
+ * (its cadence: the configured interval or the median spacing seen, whichever is longer),
+ * counting the span from the last reading to `until`; null when it kept reporting.
+ */
+export function firstSilence({ times, until, intervalSeconds }: { times: number[]; until: number; intervalSeconds: number }): number | null {
+  if (times.length === 0) return null;
+  const gaps = times.slice(1).map((t, i) => t - times[i]).filter((g) => g > 0).sort((a, b) => a - b);
+  const median = gaps.length ? gaps[gaps.length >> 1] : 0;
+  const limit = QUIET_INTERVALS * Math.max(intervalSeconds * 1000, median);
+  for (let i = 1; i < times.length; i++) if (times[i] - times[i - 1] > limit) return times[i - 1];
+  const last = times[times.length - 1];
+  return until - last > limit ? last : null;
 }
 
 function ms(t: Date | number): number {

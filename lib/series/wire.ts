@@ -113,6 +113,8 @@ export interface NightRowWire {
   /** The model's night margin from the dusk reading to this dawn. */
   margin_at_dusk: number | null;
   projected_brownout_at: number | null;
+  /** The last reading before the node fell silent inside the night (over 3 report intervals), or null. */
+  quiet_from: number | null;
 }
 
 export interface NightsReply {

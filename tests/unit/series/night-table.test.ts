@@ -43,6 +43,23 @@ describe('buildNightRows', () => {
     expect(row.margin_at_dusk).toBeCloseTo(m.margin, 9);
   });
 
+  it('says where a node fell silent inside the night (our rule: more than three report intervals)', () => {
+    expect(row.quiet_from).toBeNull();
+    const all = samples(600);
+    const cut = start.getTime() + 5 * 3600_000;
+    const [dropped] = buildNightRows({ spec, nights: [{ start, end }], samples: all.filter((x) => x.t.getTime() <= cut), now: new Date('2026-12-22T00:00:00Z') });
+    expect(dropped.quiet_from).toBe(cut / 1000);
+    // A hole from 3 h to 6 h, then reports again until dawn: silent from the last one before it.
+    const holeFrom = start.getTime() + 3 * 3600_000;
+    const withHole = all.filter((x) => x.t.getTime() <= holeFrom || x.t.getTime() >= start.getTime() + 6 * 3600_000);
+    expect(buildNightRows({ spec, nights: [{ start, end }], samples: withHole, now: end })[0].quiet_from).toBe(holeFrom / 1000);
+    // Tonight, still reporting: counted up to now, not to a dawn still ahead.
+    const now = new Date(start.getTime() + 2 * 3600_000 + 60_000);
+    const tonight = buildNightRows({ spec, nights: [{ start, end }], samples: all.filter((x) => x.t.getTime() <= now.getTime()), now })[0];
+    expect(tonight.complete).toBe(false);
+    expect(tonight.quiet_from).toBeNull();
+  });
+
   it('leaves a night without readings empty rather than invented', () => {
     const [empty] = buildNightRows({ spec, nights: [{ start, end }], samples: [], now: end });
     expect(empty).toMatchObject({ readings: 0, dusk_volts: null, min_volts: null, measured_watts: null, margin_at_dusk: null });
