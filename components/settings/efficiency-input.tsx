@@ -21,7 +21,7 @@ export function EfficiencyInput({ value, onChange, errors }: { value: Efficiency
       </div>
       {value.mode === 'constant' ? (
         <div className="flex flex-col gap-1.5">
-          <label htmlFor="node-efficiency" className="text-sm text-ink-muted">Efficiency (0..1)</label>
+          <label htmlFor="node-efficiency" className="text-sm text-ink-muted">Efficiency (%)</label>
           <input id="node-efficiency" inputMode="decimal" className={input} value={value.constant} onChange={(e) => onChange({ ...value, constant: e.target.value })}
             aria-invalid={whole ? true : undefined} aria-describedby={whole ? 'node-efficiency-error' : undefined} />
         </div>
@@ -36,7 +36,7 @@ export function EfficiencyInput({ value, onChange, errors }: { value: Efficiency
                   {errors[`converter.efficiency.${i}.0`] ? <p className="text-sm text-hazard" role="alert">{errors[`converter.efficiency.${i}.0`]}</p> : null}
                 </td>
                 <td className="pr-2 pt-1 align-top">
-                  <input aria-label={`Point ${i + 1} efficiency (0..1)`} inputMode="decimal" className={input} value={r.eta} onChange={(e) => setRow(i, 'eta', e.target.value)} />
+                  <input aria-label={`Point ${i + 1} efficiency (%)`} inputMode="decimal" className={input} value={r.eta} onChange={(e) => setRow(i, 'eta', e.target.value)} />
                   {errors[`converter.efficiency.${i}.1`] ? <p className="text-sm text-hazard" role="alert">{errors[`converter.efficiency.${i}.1`]}</p> : null}
                 </td>
                 <td className="pt-1 align-top">

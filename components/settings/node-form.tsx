@@ -4,7 +4,7 @@ import { useRouter } from 'next/navigation';
 import { useMemo, useState, type FormEvent, type ReactNode } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
-import { apiFetch, fieldErrors } from '@/lib/client/api';
+import { apiFetch, fieldErrors, inFieldUnits } from '@/lib/client/api';
 import type { NodeBody } from '@/lib/schemas/node';
 import { BankCaution } from './bank-caution';
 import { bankNotes, computeBankFigures, computeLoadFigures } from './compute-node';
@@ -35,6 +35,9 @@ export function NodeForm({ nodeId, initial, sites }: { nodeId?: number; initial:
     setBusy(false);
     if (!res.ok) {
       const found = fieldErrors(res.problem);
+      for (const i of [...BANK_INPUTS, ...CONVERTER_INPUTS, ...LOAD_INPUTS]) if (found[i.path]) found[i.path] = inFieldUnits(found[i.path], { scale: i.scale ?? 1, unit: i.unit });
+      // The efficiency (constant, or each point's second number) is typed in %.
+      for (const key of Object.keys(found)) if (key === 'converter.efficiency' || /^converter\.efficiency\.\d+\.1$/.test(key)) found[key] = inFieldUnits(found[key], { scale: 0.01, unit: '%' });
       setErrors(found);
       const stray = Object.entries(found).filter(([k]) => !knownPath(k)).map(([k, v]) => `${k}: ${v}`);
       setMessage({ text: [res.problem.detail ?? res.problem.title, stray.length ? '' : 'See the marked fields.', ...stray].filter(Boolean).join(' '), bad: true });

@@ -3,14 +3,14 @@ import type { NodeBody } from '@/lib/schemas/node';
 import { BankCaution } from './bank-caution';
 import { computeBankFigures, computeLoadFigures } from './compute-node';
 import { BankFiguresPanel, LoadFiguresPanel } from './computed-values';
-import { BANK_INPUTS, CONVERTER_INPUTS, LOAD_INPUTS, OTHER_INPUTS, type NumberInput } from './node-fields';
+import { BANK_INPUTS, CONVERTER_INPUTS, fromSi, LOAD_INPUTS, OTHER_INPUTS, type NumberInput } from './node-fields';
 
 /** What a viewer sees instead of the form: the same values and figures, nothing to change. */
 export function NodeReadonly({ node, siteName }: { node: NodeBody; siteName: string }) {
   const read = (path: string) => path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown> | null)?.[k], node);
   const eff = node.converter.efficiency;
   const list = (inputs: NumberInput[]) => inputs.map((i) => (
-    <Row key={i.path} label={i.label} figures value={read(i.path) == null ? '—' : withReadable(Number(read(i.path)), i.unit)} />
+    <Row key={i.path} label={i.label} figures value={read(i.path) == null ? '—' : withReadable(fromSi(Number(read(i.path)), i.scale), i.unit)} />
   ));
   const bank = computeBankFigures(node.bank);
   return (
@@ -24,7 +24,7 @@ export function NodeReadonly({ node, siteName }: { node: NodeBody; siteName: str
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem] lg:items-start">
         <Block title="Converter and load">
           {list(CONVERTER_INPUTS)}
-          <Row label="Efficiency" figures value={typeof eff === 'number' ? String(eff) : eff.map(([v, e]) => `${v} V → ${e}`).join(', ')} />
+          <Row label="Efficiency" figures value={typeof eff === 'number' ? `${fromSi(eff, 0.01)} %` : eff.map(([v, e]) => `${v} V → ${fromSi(e, 0.01)} %`).join(', ')} />
           {list(LOAD_INPUTS)}
         </Block>
         <LoadFiguresPanel figures={computeLoadFigures(node)} heading="Computed" />
@@ -43,7 +43,7 @@ function Block({ title, children }: { title: string; children: React.ReactNode }
   );
 }
 
-// Small currents read better in µA or mA beside the stored amps.
+// A current still typed in amps reads better in µA or mA beside them.
 function withReadable(value: number, unit: string): string {
   if (unit === 'A' && value > 0 && value < 1) return `${value} A (${formatAmps(value)})`;
   // Counted units (cells, strings) are plural words: "1 string", "2 strings".

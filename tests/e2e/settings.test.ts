@@ -36,7 +36,8 @@ describe('node settings form in Chromium', () => {
     await page.getByTestId('computed-burst-floor').waitFor();
     const floor = await page.getByTestId('computed-burst-floor').textContent();
     expect(floor).toMatch(/^\d\.\d{3} V$/);
-    await page.getByLabel('Burst current (A)').fill('0.5');
+    // Currents are typed as datasheets give them (mA here) and stored in amps.
+    await page.getByLabel('Burst current (mA)').fill('500');
     await expect.poll(() => page.getByTestId('computed-burst-floor').textContent()).not.toBe(floor);
 
     // A cutoff above the bank's maximum: only the server's cross-field check knows it.
@@ -61,10 +62,14 @@ describe('node settings form in Chromium', () => {
     await page.getByTestId('node-created').waitFor();
     const nodeId = Number(new URL(page.url()).pathname.split('/')[2]);
     const row = await db()('nodes').where({ id: nodeId }).first();
-    expect(row).toMatchObject({ cells_series: 3, cell_farads: 200, burst_amps: 0.5, cutoff_volts: 0.9 });
+    expect(row).toMatchObject({ cells_series: 3, cell_farads: 200, burst_amps: 0.5, cutoff_volts: 0.9, cell_esr_ohms: 0.015, cell_leakage_amps: 0.000005 });
+    expect(typeof row.efficiency === 'string' ? JSON.parse(row.efficiency) : row.efficiency).toBe(0.85);
 
     await page.goto(`/nodes/${nodeId}/settings`);
     await expect(page.getByLabel('Cell capacitance (F)').inputValue()).resolves.toBe('200');
+    await expect(page.getByLabel('Burst current (mA)').inputValue()).resolves.toBe('500');
+    await expect(page.getByLabel('Cell ESR (mΩ)').inputValue()).resolves.toBe('15');
+    await expect(page.getByLabel('Efficiency (%)').inputValue()).resolves.toBe('85');
     await expect(page.getByTestId('back-to-node').getAttribute('href')).resolves.toBe(`/nodes/${nodeId}`);
     await screenshot(page, 'settings-node-edit');
     expect(failures).toEqual([]);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { bankNotes } from '@/components/settings/compute-node';
+import { bodyFromForm, formFromBody, NEW_NODE } from '@/components/settings/node-fields';
 import { inFieldUnits } from '@/lib/client/api';
 import { pointersFromZod } from '@/lib/errors';
 import { bankSchema, loadSchema, siteModelSchema } from '@/lib/schemas/model';
@@ -41,5 +42,20 @@ describe('bank notes beside the node form', () => {
     expect(bankNotes({ ...bank, cell_rated_volts: 3.8 })).toEqual([expect.stringMatching(/lithium-ion capacitor/)]);
     expect(bankNotes({ ...bank, cell_esr_ohms: 0 })).toEqual([expect.stringMatching(/ESR of 0 Ω/)]);
     expect(bankNotes({ ...bank, cell_rated_volts: 'x' })).toEqual([]);
+  });
+});
+
+describe('node form units', () => {
+  it('currents in µA and mA, ESR in mΩ and efficiency in % go out as SI and come back unchanged', () => {
+    const body = { ...NEW_NODE, name: 'n', site_id: 1, converter: { ...NEW_NODE.converter, efficiency: [[1, 0.7], [3, 0.88]] as [number, number][] } };
+    const form = formFromBody(body);
+    expect(form.values['load.sleep_amps']).toBe('20'); // 0.00002 A = 20 µA
+    expect(form.values['load.burst_amps']).toBe('120'); // 0.12 A = 120 mA
+    expect(form.values['bank.cell_esr_ohms']).toBe('15'); // 0.015 Ω = 15 mΩ
+    expect(form.efficiency.rows.map((r) => r.eta)).toEqual(['70', '88']);
+    const back = bodyFromForm(form.values, form.efficiency) as typeof body;
+    expect(back.load).toEqual(body.load);
+    expect(back.bank).toEqual(body.bank);
+    expect(back.converter.efficiency).toEqual([[1, 0.7], [3, 0.88]]);
   });
 });
