@@ -15,7 +15,8 @@ export function SiteForm({ siteId, initial }: { siteId?: number; initial: SiteBo
   const router = useRouter();
   const [v, setV] = useState({
     name: initial?.name ?? '', lat: initial ? String(initial.lat) : '', lon: initial ? String(initial.lon) : '', time_zone: initial?.time_zone ?? '',
-    recharge_elevation_deg: String(initial?.recharge_elevation_deg ?? -0.833), notes: initial?.notes ?? '',
+    // A new site starts at 3°, the low end of where small panels give net charge (see the hint).
+    recharge_elevation_deg: String(initial?.recharge_elevation_deg ?? 3), notes: initial?.notes ?? '',
   });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ text: string; bad: boolean } | null>(null);
@@ -56,7 +57,7 @@ export function SiteForm({ siteId, initial }: { siteId?: number; initial: SiteBo
       <Field id="site-zone" label="Time zone" hint="IANA name; times on every page are shown in it." list="site-zone-list" value={v.time_zone} onChange={set('time_zone')} error={errors.time_zone} autoComplete="off" />
       <datalist id="site-zone-list">{zones.map((z) => <option key={z} value={z} />)}</datalist>
       <Field id="site-elevation" label="Recharge elevation (°)" inputMode="decimal" value={v.recharge_elevation_deg} onChange={set('recharge_elevation_deg')} error={errors.recharge_elevation_deg}
-        hint="Sun elevation above which the panel gives net charge. −0.833° is standard sunrise; a small panel gives net charge only a few degrees above, often 3° to 6° (common practice: measure yours)." />
+        hint="Sun elevation above which the panel gives net charge. −0.833° is standard sunrise; a small panel gives net charge only a few degrees above, often 3° to 6° (common practice: measure yours). New sites start at 3°." />
       <RechargePreview lat={num(v.lat) ?? NaN} lon={num(v.lon) ?? NaN} elevationDeg={Number(v.recharge_elevation_deg)} timeZone={v.time_zone} />
       <div className="flex flex-col gap-1.5">
         <label htmlFor="site-notes" className="text-sm font-bold">Notes</label>

@@ -17,11 +17,19 @@ export const ORG_COOKIE = 'dw-org';
  * Throws 401 when signed out (or no longer a member anywhere), 403 when the role is too low.
  */
 export async function requireMember(permission: Permission = 'fleet:read'): Promise<Member> {
-  const member = await currentMember();
-  if (!member) throw problems.unauthorized();
-  if (!can(member.role, permission)) throw problems.forbidden();
-  return member;
+  return (await requireMemberships(permission)).member;
 }
+
+/** requireMember, with every organization the person belongs to (one session decode, one query). */
+export async function requireMemberships(permission: Permission = 'fleet:read'): Promise<Memberships> {
+  const found = await currentMemberships();
+  if (!found) throw problems.unauthorized();
+  if (!can(found.member.role, permission)) throw problems.forbidden();
+  return found;
+}
+
+export type OrgChoice = { id: number; name: string; role: Member['role'] };
+export type Memberships = { member: Member; organizations: OrgChoice[] };
 
 export async function currentMember(): Promise<Member | null> {
   return (await currentMemberships())?.member ?? null;
@@ -32,7 +40,7 @@ export async function currentMember(): Promise<Member | null> {
  * Which one is shown comes from the dw-org cookie (PUT /api/v1/org/current), honoured only
  * while the person is still a member there; otherwise their first membership.
  */
-export async function currentMemberships(): Promise<{ member: Member; organizations: { id: number; name: string; role: Member['role'] }[] } | null> {
+export async function currentMemberships(): Promise<Memberships | null> {
   const session = await getServerSession(authOptions());
   const user = session?.user as { id?: string; authAt?: number } | undefined;
   const userId = Number(user?.id);

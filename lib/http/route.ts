@@ -1,6 +1,6 @@
 import 'server-only';
 import type { z } from 'zod';
-import { assertSameOrigin, requireMember, type Member } from '../auth/guard';
+import { assertSameOrigin, requireMemberships, type Member, type OrgChoice } from '../auth/guard';
 import type { Permission } from '../auth/roles';
 import { pointersFromZod, problemResponse, problems } from '../errors';
 
@@ -12,15 +12,15 @@ type Params = Record<string, string | string[]>;
 
 export function memberRoute<S extends z.ZodType | undefined, P extends Params = Params>(
   opts: { permission: Permission; body?: S },
-  act: (ctx: { member: Member; body: S extends z.ZodType ? z.infer<S> : undefined; params: P; request: Request }) => Promise<Response>,
+  act: (ctx: { member: Member; organizations: OrgChoice[]; body: S extends z.ZodType ? z.infer<S> : undefined; params: P; request: Request }) => Promise<Response>,
 ) {
   return async (request: Request, context: { params: Promise<P> }): Promise<Response> => {
     try {
-      const member = await requireMember(opts.permission);
+      const { member, organizations } = await requireMemberships(opts.permission);
       assertSameOrigin(request);
       let body: unknown = undefined;
       if (opts.body) body = await parseJsonBody(request, opts.body);
-      return await act({ member, body: body as never, params: await context.params, request });
+      return await act({ member, organizations, body: body as never, params: await context.params, request });
     } catch (error) {
       return problemResponse(error);
     }

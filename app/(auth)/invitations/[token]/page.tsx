@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { JoinExistingForm } from '@/components/auth/join-existing-form';
 import { TokenPasswordForm } from '@/components/auth/token-password-form';
+import { oneTimeTokenSchema } from '@/lib/schemas/team';
 import { describeInvitation } from '@/lib/db/queries/team';
 
 export const metadata: Metadata = { title: 'Accept invitation' };
@@ -9,7 +10,7 @@ export const dynamic = 'force-dynamic';
 
 export default async function AcceptInvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const invitation = /^[A-Za-z0-9_-]{20,200}$/.test(token) ? await describeInvitation(token) : null;
+  const invitation = oneTimeTokenSchema.safeParse(token).success ? await describeInvitation(token) : null;
   if (!invitation) {
     return (
       <>
