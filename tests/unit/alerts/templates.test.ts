@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildAlertMail, likelyCause } from '@/lib/mail/templates/alert-mail';
+import { alertLine } from '@/lib/alerts/labels';
 import { alertDetail } from '@/lib/alerts/rules';
 import { MAX_VOLTS, statusWith } from './fixtures';
 
@@ -30,5 +31,15 @@ describe('the alert e-mail', () => {
     expect(likelyCause({ ...detail, measured_watts: 0.006, modelled_watts: 0.002, draw_ratio: 3 })).toMatch(/stuck awake/);
     expect(likelyCause({ ...detail, measured_watts: 0.0021, modelled_watts: 0.002, draw_ratio: 1.05 })).toMatch(/bank is too small/);
     expect(likelyCause(detail)).toMatch(/no measured draw yet/);
+  });
+
+  it('gives the over-voltage figure itself, in the line, the subject and the body, and the margin with its ×', () => {
+    const over = alertDetail({ status: statusWith({ volts: 9.5 }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: 5.4, night: null, day: null, measuredWatts: null });
+    // 9.5 / 5.4 = 1.759 → 176 % (derived here)
+    expect(alertLine('over_voltage', over)).toContain('9.50 V, 176 % of its rated 5.40 V');
+    const mail = buildAlertMail({ kind: 'over_voltage', detail: over, nodeId: 7, nodeName: 'N-7', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x' });
+    expect(mail.subject).toContain('over-voltage (9.50 V, 176 % of its rated 5.40 V)');
+    expect(mail.text).toMatch(/Bank:\s+9\.50 V \(176 % of the rated 5\.40 V\)/);
+    expect(buildAlertMail({ kind: 'reserve_short', detail, nodeId: 1, nodeName: 'N', siteName: 'S', timeZone: 'UTC', appUrl: 'http://x' }).text).toMatch(/Night margin:\s+0\.62×/);
   });
 });
