@@ -30,7 +30,7 @@ export default async function TeamPage() {
             <h2 className="mt-8 font-bold">Open invitations</h2>
             <ul className="mt-2 text-sm text-ink-muted">
               {invitations.map((i: { id: number; email: string; role: string; expiresAt: Date }) => (
-                <li key={i.id} className="border-t border-dusk-800 py-2">{i.email} as {i.role}, until <span className="figures">{formatInTimeZone(new Date(i.expiresAt), 'UTC', 'yyyy-MM-dd HH:mm')}</span></li>
+                <li key={i.id} className="border-t border-dusk-800 py-2">{i.email} as {i.role}, until <span className="figures">{formatInTimeZone(new Date(i.expiresAt), 'UTC', 'd MMM yyyy HH:mm')} UTC</span></li>
               ))}
             </ul>
           </>
