@@ -43,3 +43,17 @@ const INSERT_HEAD = `INSERT INTO node_status (node_id, org_id, ${STATUS_COLUMNS.
 const PLACEHOLDER_ROW = `(?, ?, ${STATUS_COLUMNS.map(() => '?').join(', ')})`;
 const UPDATE_TAIL = `
     ON DUPLICATE KEY UPDATE ${STATUS_COLUMNS.map((c) => `${c} = IF(${NEWER}, VALUES(${c}), ${c})`).join(', ')}`;
+
+/**
+ * The same guard for a status row written outside the ingest (the margin pass, a refresh after
+ * a settings change), with whatever columns that writer has: a reading stored meanwhile by a
+ * post is never overwritten by a status worked out from an older one.
+ */
+export function guardedStatusUpsert(values: Record<string, unknown>): { sql: string; bindings: unknown[] } {
+  const columns = Object.keys(values);
+  if (!columns.includes('last_reading_at')) throw new Error('a status row needs last_reading_at');
+  const updated = [...columns.filter((c) => c !== 'node_id' && c !== 'org_id' && c !== 'last_reading_at'), 'last_reading_at'];
+  const sql = `INSERT INTO node_status (${columns.join(', ')}) VALUES (${columns.map(() => '?').join(', ')})
+    ON DUPLICATE KEY UPDATE ${updated.map((c) => `${c} = IF(${NEWER}, VALUES(${c}), ${c})`).join(', ')}`;
+  return { sql, bindings: columns.map((c) => values[c]) };
+}

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDb } from '@/lib/db/knex';
+import { closeDb, db } from '@/lib/db/knex';
+import { refreshNodeStatus } from '@/lib/db/queries/status';
 import { api } from './helpers/stack';
 import { createTestNode } from './helpers/fleet';
 
@@ -71,5 +72,22 @@ describe('status after an edit', () => {
     // comes about that much sooner, or a day less that later when the sooner one has passed.
     const shiftHours = (Date.parse(after.recharge_at!) - Date.parse(before.recharge_at!)) / 3_600_000;
     expect(Math.min(Math.abs(shiftHours + 6), Math.abs(shiftHours - 18))).toBeLessThan(1.5);
+  });
+});
+
+describe('a refresh racing a post', () => {
+  it('never overwrites a status that a newer reading wrote meanwhile', async () => {
+    // As if a post of a newer reading had committed between the refresh's read and its write:
+    // the row reflects a reading a minute in the future of the one the refresh works from.
+    const newer = new Date(Date.now() + 60_000);
+    await db()('node_status').where({ node_id: node.nodeId }).update({ last_reading_at: newer, volts: 3.333 });
+    await refreshNodeStatus(node.nodeId);
+    const row = await db()('node_status').where({ node_id: node.nodeId }).first();
+    expect(row.volts).toBe(3.333);
+    expect(new Date(row.last_reading_at).getTime()).toBe(newer.getTime());
+    // With the row back on the latest stored reading, the refresh writes again.
+    await db()('node_status').where({ node_id: node.nodeId }).update({ last_reading_at: null });
+    await refreshNodeStatus(node.nodeId);
+    expect((await db()('node_status').where({ node_id: node.nodeId }).first()).volts).toBeCloseTo(4.2, 6);
   });
 });

@@ -4,6 +4,7 @@ import type { UnresolvedAlert } from '../../alerts/hysteresis';
 import type { NodeState } from '../../config/node-states';
 import type { DerivedStatus } from '../../status/derive-status';
 import type { NodeRow, SiteRow } from '../../status/node-spec';
+import { guardedStatusUpsert } from '../../ingest/status-upsert';
 
 type Db = Knex | Knex.Transaction;
 
@@ -53,7 +54,8 @@ export async function readingsBetween(knex: Db, nodeId: number, from: Date, to: 
 
 export async function upsertNodeStatus(trx: Db, row: { nodeId: number; orgId: number; status: DerivedStatus; measuredWatts: number | null; modelledWatts: number | null }) {
   const values = { node_id: row.nodeId, org_id: row.orgId, ...row.status, measured_watts: row.measuredWatts, modelled_watts: row.modelledWatts };
-  await trx('node_status').insert(values).onConflict('node_id').merge();
+  const { sql, bindings } = guardedStatusUpsert(values);
+  await trx.raw(sql, bindings as never[]);
 }
 
 export interface AlertRow {

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { db } from '../knex';
 import { deriveNodeStatus, type DerivedStatus } from '../../status/derive-status';
 import { calibratedVolts, modelSpecFromRows, type NodeRow, type SiteRow } from '../../status/node-spec';
+import { guardedStatusUpsert } from '../../ingest/status-upsert';
 import { latestReading } from './readings';
 
 /** Loads what the model needs for one node: its row, its site, its organization's thresholds. */
@@ -27,7 +28,9 @@ export async function refreshNodeStatus(nodeId: number, now = new Date(), knex: 
     now,
     thresholds: loaded.thresholds,
   });
-  await knex('node_status').insert({ node_id: nodeId, org_id: loaded.node.org_id, ...status }).onConflict('node_id').merge();
+  // Guarded like the ingest's write: a reading stored meanwhile keeps its own, newer status.
+  const { sql, bindings } = guardedStatusUpsert({ node_id: nodeId, org_id: loaded.node.org_id, ...status });
+  await knex.raw(sql, bindings as never[]);
   return status;
 }
 
