@@ -22,7 +22,7 @@ export function FleetCards({ nodes, now }: { nodes: FleetNodeWire[]; now: string
               <Term term="Bank"><BankValue volts={n.volts} maxVolts={n.max_volts} /></Term>
               <Term term="Charge"><SocValue soc={n.soc} /></Term>
               <Term term="Reserve"><ReserveValue joules={n.reserve_joules} /></Term>
-              <Term term="Margin">{isQuiet(n.state) ? <QuietValue /> : <MarginValue margin={n.margin} />}</Term>
+              <Term term="Margin">{isQuiet(n.state) ? <QuietValue /> : <MarginValue margin={n.margin} node={n} />}</Term>
               <Term term="Recharge">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} />}</Term>
               <Term term="Brownout">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" />}</Term>
               <Term term="Last reading"><AgeValue at={n.last_reading_at} now={now} /></Term>

@@ -54,7 +54,7 @@ export function FleetTable({ nodes, now, sortKey, direction, onSort }: { nodes: 
               <td className="whitespace-nowrap py-2.5 pr-3 text-right"><BankValue volts={n.volts} maxVolts={n.max_volts} /></td>
               <td className="whitespace-nowrap py-2.5 pr-3"><SocValue soc={n.soc} /></td>
               <td className="whitespace-nowrap py-2.5 pr-3 text-right"><ReserveValue joules={n.reserve_joules} /></td>
-              <td className="whitespace-nowrap py-2.5 pr-3 text-right">{isQuiet(n.state) ? <QuietValue /> : <MarginValue margin={n.margin} />}</td>
+              <td className="whitespace-nowrap py-2.5 pr-3 text-right">{isQuiet(n.state) ? <QuietValue /> : <MarginValue margin={n.margin} node={n} />}</td>
               <td className="whitespace-nowrap py-2.5 pr-3">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.recharge_at} timeZone={n.time_zone} now={now} />}</td>
               <td className="whitespace-nowrap py-2.5 pr-3">{isQuiet(n.state) ? <QuietValue /> : <LocalTime at={n.brownout_at} timeZone={n.time_zone} now={now} empty="none projected" />}</td>
               <td className="whitespace-nowrap py-2.5 pr-3"><AgeValue at={n.last_reading_at} now={now} /></td>

@@ -1,4 +1,5 @@
 import { DRAW_ANOMALY_RATIO, overVoltageFraction } from '@/lib/alerts/kinds';
+import { drawScaleFrom } from '@/lib/energy/evaluate';
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
 import { formatInTimeZone } from '@/lib/format/time';
 import { formatAge, formatJoules, formatMargin, formatPercent, formatVolts, formatWatts, formatWattHours } from '@/lib/format/units';
@@ -48,8 +49,14 @@ export function ReserveValue({ joules }: { joules: number | null }) {
   );
 }
 
-export function MarginValue({ margin }: { margin: number | null }) {
-  return <span className={`figures ${margin != null && margin < 1 ? 'font-bold text-hazard' : ''}`}>{formatMargin(margin)}</span>;
+export function MarginValue({ margin, node }: { margin: number | null; node?: FleetNodeWire }) {
+  const measured = node ? drawScaleFrom({ measuredWatts: node.measured_watts, modelledWatts: node.modelled_watts }) > 1 : false;
+  return (
+    <span className={`figures ${margin != null && margin < 1 ? 'font-bold text-hazard' : ''}`}>
+      {formatMargin(margin)}
+      {measured ? <span className="block text-xs font-normal text-ink-muted" title="Projected with the draw measured last night, far above what its settings predict">measured draw</span> : null}
+    </span>
+  );
 }
 
 export function LocalTime({ at, timeZone, now, empty = '—' }: { at: string | null; timeZone: string; now: string; empty?: string }) {

@@ -2,6 +2,7 @@
 
 import { formatJoules, formatMargin, formatVolts, formatWatts } from '@/lib/format/units';
 import type { NightRowWire } from '@/lib/series/wire';
+import { NEAR_FLOOR_FRACTION } from '@/lib/status/derive-status';
 import { formatLocal } from './local-time';
 import { useNightTable } from './use-node-data';
 
@@ -12,6 +13,8 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
   const t = (s: number | null) => (s === null ? '—' : formatLocal(s, zone, 'HH:mm'));
   const day = (s: number) => formatLocal(s, zone, 'EEE d MMM');
   const floor = data?.burst_floor_volts ?? 0;
+  // "Near the floor" as the dark state reads it: within a tenth of the span from floor to full.
+  const nearFloorVolts = floor + NEAR_FLOOR_FRACTION * Math.max(0, (data?.max_volts ?? floor) - floor);
   const lowTone = (n: NightRowWire) => (n.min_volts !== null && n.min_volts <= floor * 1.02 ? 'text-hazard' : '');
 
   return (
@@ -40,10 +43,10 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                 <tr>
                   <th scope="col" className="py-2 pr-3">Night of</th>
                   <th scope="col" className="pr-3">Dusk → dawn</th>
-                  <th scope="col" className="pr-3 text-right">Energy dusk (J)</th>
-                  <th scope="col" className="pr-3 text-right">Energy dawn (J)</th>
-                  <th scope="col" className="pr-3 text-right">Min (V)</th>
-                  <th scope="col" className="pr-3 text-right">Draw measured / model (W)</th>
+                  <th scope="col" className="pr-3 text-right">Energy at dusk</th>
+                  <th scope="col" className="pr-3 text-right">Energy at dawn</th>
+                  <th scope="col" className="pr-3 text-right">Lowest</th>
+                  <th scope="col" className="pr-3 text-right">Draw measured / model</th>
                   <th scope="col" className="pr-3 text-right">Margin at dusk</th>
                   <th scope="col">Outcome</th>
                 </tr>
@@ -52,13 +55,13 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                 {data.nights.map((n) => (
                   <tr key={n.dusk_at} className="border-t border-dusk-800" data-testid="night-row">
                     <th scope="row" className="py-2 pr-3 font-bold">{day(n.dusk_at)}{n.complete ? '' : <span className="ml-2 text-xs font-normal text-tide">tonight</span>}</th>
-                    <td className="figures pr-3">{t(n.dusk_at)} → {t(n.dawn_at)}</td>
-                    <td className="figures pr-3 text-right">{formatJoules(n.dusk_energy_joules)}</td>
-                    <td className="figures pr-3 text-right"><DawnEnergy n={n} /></td>
-                    <td className={`figures pr-3 text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</td>
-                    <td className="figures pr-3 text-right"><Draw n={n} /></td>
+                    <td className="figures whitespace-nowrap pr-3">{t(n.dusk_at)} → {t(n.dawn_at)}</td>
+                    <td className="figures whitespace-nowrap pr-3 text-right">{formatJoules(n.dusk_energy_joules)}</td>
+                    <td className="figures whitespace-nowrap pr-3 text-right"><DawnEnergy n={n} /></td>
+                    <td className={`figures whitespace-nowrap pr-3 text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</td>
+                    <td className="figures whitespace-nowrap pr-3 text-right"><Draw n={n} /></td>
                     <td className={`figures pr-3 text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</td>
-                    <td className="text-sm"><Outcome n={n} t={t} /></td>
+                    <td className="text-sm"><Outcome n={n} t={t} nearFloorVolts={nearFloorVolts} /></td>
                   </tr>
                 ))}
               </tbody>
@@ -77,7 +80,7 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                   <dt className="font-sans text-ink-faint">Lowest</dt><dd className={`text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</dd>
                   <dt className="font-sans text-ink-faint">Draw meas. / model</dt><dd className="text-right"><Draw n={n} /></dd>
                   <dt className="font-sans text-ink-faint">Margin at dusk</dt><dd className={`text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</dd>
-                  <dt className="font-sans text-ink-faint">Outcome</dt><dd className="text-right font-sans"><Outcome n={n} t={t} /></dd>
+                  <dt className="font-sans text-ink-faint">Outcome</dt><dd className="text-right font-sans"><Outcome n={n} t={t} nearFloorVolts={nearFloorVolts} /></dd>
                 </dl>
               </li>
             ))}
@@ -94,10 +97,21 @@ function DawnEnergy({ n }: { n: NightRowWire }) {
   return <>{formatJoules(n.dawn_energy_joules)} <span className="block text-xs text-ink-faint">so far</span></>;
 }
 
-/** What happened, beside what the model said at dusk: a night the node did not report through says so. */
-function Outcome({ n, t }: { n: NightRowWire; t: (s: number | null) => string }) {
+/**
+ * What happened, beside what the model said at dusk: a night the node did not report through
+ * says so, as a brownout when its last reading was near the burst floor (as the dark state
+ * reads it), else as a silence (link or firmware).
+ */
+function Outcome({ n, t, nearFloorVolts }: { n: NightRowWire; t: (s: number | null) => string; nearFloorVolts: number }) {
   if (n.readings === 0) return <span className="text-ink-faint">no readings</span>;
-  if (n.quiet_from !== null) return <span className="font-bold text-hazard" data-testid="night-quiet">quiet from {t(n.quiet_from)}</span>;
+  if (n.quiet_from !== null) {
+    const nearFloor = n.dawn_volts !== null && n.dawn_volts <= nearFloorVolts;
+    return (
+      <span className="font-bold text-hazard" data-testid="night-quiet">
+        {nearFloor ? `browned out after ${t(n.quiet_from)}` : `quiet from ${t(n.quiet_from)}`}
+      </span>
+    );
+  }
   return <span className="text-ink-muted">{n.complete ? 'reported all night' : 'reporting'}</span>;
 }
 

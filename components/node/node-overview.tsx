@@ -56,7 +56,9 @@ export function NodeOverview({ nodeId, initial }: { nodeId: number; initial: Sta
         <FigureTile label="Bank, calibrated" value={formatVolts(s.volts)} note={`${over !== null ? 'over the rated' : 'full'} ${formatVolts(s.bank.max_volts, 2)} · floor ${formatVolts(s.bank.burst_floor_volts, 2)}`} tone={over !== null ? 'hazard' : 'ink'} testId="figure-volts" />
         <FigureTile label="State of charge" value={formatPercent(s.soc)} note="of the energy above cutoff" tone="ember" testId="figure-soc" />
         <FigureTile label="Reserve" value={formatJoules(s.reserve_joules)} note={s.reserve_joules === null ? 'no reading yet' : `${formatWattHours(s.reserve_joules)} above the burst floor`} testId="figure-reserve" />
-        <FigureTile label="Night margin" value={formatMargin(s.margin)} note={quiet ? 'at the last reading' : 'reserve ÷ draw to recharge'} tone={quiet ? 'ink' : marginTone} testId="figure-margin" />
+        <FigureTile label="Night margin" value={formatMargin(s.margin)}
+          note={quiet ? 'at the last reading' : s.draw_scale > 1 ? `with the draw measured last night (${s.draw_scale.toFixed(2)}× the model)` : 'reserve ÷ draw to recharge'}
+          tone={quiet ? 'ink' : marginTone} testId="figure-margin" />
         <FigureTile label="Recharge" value={at(s.recharge_at)} note={rechargePassed ? 'passed since the last reading' : quiet ? 'as seen from the last reading' : "sun up through the site's elevation"} tone={rechargePassed ? 'ink' : 'tide'} testId="figure-recharge" />
         <FigureTile label="Projected brownout" value={s.volts === null ? '—' : at(s.brownout_at, 'none')} note={s.volts === null ? 'no reading yet' : quiet ? 'as seen from the last reading' : s.brownout_at === null ? 'before the recharge' : 'at the burst floor'} tone={s.brownout_at === null ? 'ink' : 'hazard'} testId="figure-brownout" />
         <FigureTile label="Last reading" value={formatAge(s.last_reading_at === null ? null : new Date(s.last_reading_at * 1000), new Date(now))} note={at(s.last_reading_at, 'never')} testId="figure-age" />

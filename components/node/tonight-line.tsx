@@ -24,12 +24,13 @@ export function tonightSentence({ s }: { s: StatusReply }): { text: string; tone
   if (s.brownout_at !== null && brownoutPassed) {
     return { text: `Projected to brown out at ${at(s.brownout_at)}, and no report has come since ${last}.`, tone: 'hazard' };
   }
+  const measured = s.draw_scale > 1 ? ` Projected with the draw measured last night, ${s.draw_scale.toFixed(2)}× what its settings predict.` : '';
   if (s.brownout_at !== null) {
     const early = s.recharge_at !== null ? ` — ${spanWords(s.recharge_at - s.brownout_at)} before the recharge at ${at(s.recharge_at)}` : '';
-    return { text: `Projected to brown out at ${at(s.brownout_at)}${early}.`, tone: 'hazard' };
+    return { text: `Projected to brown out at ${at(s.brownout_at)}${early}.${measured}`, tone: 'hazard' };
   }
   if (s.recharge_at === null) return { text: 'No recharge within seven days (polar night): the margin covers the week ahead.', tone: 'muted' };
-  return { text: `Reaches the recharge at ${at(s.recharge_at)} with ${formatMargin(s.margin)} the energy it needs.`, tone: 'ember' };
+  return { text: `Reaches the recharge at ${at(s.recharge_at)} with ${formatMargin(s.margin)} the energy it needs.${measured}`, tone: 'ember' };
 }
 
 export function spanWords(seconds: number): string {

@@ -33,13 +33,14 @@ export function PlannerAnswer({ answer, busy, timeZone, cutoffVolts }: { answer:
       {polar ? (
         <p role="note" className="rounded-lg border border-hazard/70 bg-dusk-950 px-3 py-2 text-sm" data-testid="planner-polar-night">
           <strong className="text-hazard">Polar night.</strong> Here the sun stays below the recharge elevation for more than 7 days, and this plan
-          covers only the first 7. No bank of this size carries a node through a polar winter: plan for it to sleep until the sun returns, or give it another source.
+          covers only the first 7 (and the extra days): the cell count above is for that span, not for the winter. No practical bank carries a node through a polar
+          winter: plan for it to sleep until the sun returns, or give it another source.
         </p>
       ) : null}
       <dl className="grid grid-cols-2 gap-x-4 gap-y-3 text-sm sm:grid-cols-3">
         <Figure term="Energy at full">{formatJoules(answer.energy_full_joules)}<Sub>{formatWattHours(answer.energy_full_joules)}</Sub></Figure>
         <Figure term="Night length">{polar ? 'over 7 days' : formatDuration(answer.night_seconds)}
-          <Sub>{answer.night_start ? <>from <span suppressHydrationWarning>{formatInTimeZone(new Date(answer.night_start), timeZone, 'd MMM HH:mm')}</span></> : 'no sunset'}</Sub>
+          <Sub>{polar ? 'the sun stays below the recharge elevation' : answer.night_start ? <>from <span suppressHydrationWarning>{formatInTimeZone(new Date(answer.night_start), timeZone, 'd MMM HH:mm')}</span></> : 'no sunset'}</Sub>
         </Figure>
         <Figure term="Carried without sun">{formatDuration(answer.window_seconds)}<Sub>night + extra days</Sub></Figure>
         <Figure term="Draw over that span">{formatJoules(answer.night_draw_joules)}<Sub>{formatWattHours(answer.night_draw_joules)}</Sub></Figure>

@@ -43,6 +43,8 @@ export function PlannerForm({ sites }: { sites: PlannerSite[] }) {
       const found = fieldErrors(res.problem);
       for (const f of ALL_FIELDS) if (found[f.path]) found[f.path] = inFieldUnits(found[f.path], f);
       setErrors(found);
+      // An answer computed from other values must not stand under values that were refused.
+      setAnswer(null);
       setMessage(res.problem.errors?.length ? 'Some values need a look: see the fields marked above.' : (res.problem.detail ?? res.problem.title));
       return;
     }

@@ -14,7 +14,7 @@ export function EfficiencyInput({ value, onChange, errors }: { value: Efficiency
       <div className="flex flex-wrap gap-4 text-sm">
         {(['constant', 'table'] as const).map((mode) => (
           <label key={mode} className="flex items-center gap-2">
-            <input type="radio" name="efficiency-mode" value={mode} checked={value.mode === mode} onChange={() => onChange({ ...value, mode })} />
+            <input type="radio" name="efficiency-mode" value={mode} checked={value.mode === mode} onChange={() => onChange(switchMode(value, mode))} />
             {mode === 'constant' ? 'One number' : 'A table over input volts'}
           </label>
         ))}
@@ -27,7 +27,7 @@ export function EfficiencyInput({ value, onChange, errors }: { value: Efficiency
         </div>
       ) : (
         <table className="text-sm">
-          <thead><tr className="text-left text-xs text-ink-faint"><th className="font-normal">Input (V)</th><th className="font-normal">Efficiency (0..1)</th><th><span className="sr-only">Remove</span></th></tr></thead>
+          <thead><tr className="text-left text-xs text-ink-faint"><th className="font-normal">Input (V)</th><th className="font-normal">Efficiency (%)</th><th><span className="sr-only">Remove</span></th></tr></thead>
           <tbody>
             {value.rows.map((r, i) => (
               <tr key={i}>
@@ -55,4 +55,11 @@ export function EfficiencyInput({ value, onChange, errors }: { value: Efficiency
       {whole ? <p id="node-efficiency-error" className="text-sm text-hazard" role="alert">{whole}</p> : null}
     </fieldset>
   );
+}
+
+/** Switching to the table starts it from the one number (a flat point), never from nothing. */
+function switchMode(value: EfficiencyState, mode: EfficiencyState['mode']): EfficiencyState {
+  const empty = value.rows.every((r) => r.volts.trim() === '' && r.eta.trim() === '');
+  if (mode === 'table' && empty) return { ...value, mode, rows: [{ volts: '1', eta: value.constant }] };
+  return { ...value, mode };
 }

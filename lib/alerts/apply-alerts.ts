@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { modelBank } from '../energy';
+import { drawScaleFrom, modelBank } from '../energy';
 import type { PassNode } from '../db/queries/alerts';
 import { latestReadingAt, lockUnresolvedAlert, insertAlert, readingsBetween, updateAlert, upsertNodeStatus } from '../db/queries/alerts';
 import { deriveNodeStatus } from '../status/derive-status';
@@ -36,11 +36,13 @@ export async function evaluatePassNode({ knex, passNode, now }: { knex: Knex; pa
   const latest = await latestReadingAt(knex, node.id, now);
   const recent = await readingsBetween(knex, node.id, new Date(now.getTime() - HISTORY_MS), now);
   const samples = recent.map((r) => ({ t: r.t, volts: calibratedVolts(node, r.v), ...(r.vp === null ? {} : { panelVolts: r.vp }) }));
+  const night = measureLatestNight({ spec, samples, now });
   const status = deriveNodeStatus({
     spec, now, thresholds: { steady: org.steady, thin: org.thin }, lastAdvisedIntervalSeconds: passNode.lastAdvisedIntervalSeconds,
     latest: latest ? { t: latest.t, volts: calibratedVolts(node, latest.v), panelVolts: latest.vp } : null,
+    // A node that drew far more than modelled last night is projected with what it drew.
+    drawScale: drawScaleFrom({ measuredWatts: night?.measuredWatts, modelledWatts: night?.modelledWatts }),
   });
-  const night = measureLatestNight({ spec, samples, now });
   const day = assessLatestDay({ spec, samples, now });
   const ruleInput = { status, thresholds: { steady: org.steady, thin: org.thin }, alertOnThin: org.alertOnThin, maxVolts: modelBank({ bank: spec.bank }).maxVolts, night, day };
   const measuredWatts = night?.measuredWatts ?? null;

@@ -5,7 +5,7 @@ import type { AlertKind } from './kinds';
  * Who hears of an alert. A member's subscription rows each cover one site (or every site,
  * site null) with a list of kinds and a delivery (immediate or a daily digest); a row for the
  * alert's own site wins over the every-site row. A member with no row at all gets the default:
- * owners receive short and over-voltage alerts immediately, others nothing.
+ * owners receive short, dark, silent and over-voltage alerts immediately, others nothing.
  */
 export interface MemberContact {
   membershipId: number;
@@ -23,8 +23,9 @@ export interface SubscriptionRow {
 
 export type Delivery = SubscriptionRow['delivery'];
 
-// Over-voltage is a hazard (cells vent), so owners hear of it without subscribing, like a short reserve.
-export const DEFAULT_OWNER_KINDS: AlertKind[] = ['reserve_short', 'over_voltage'];
+// Owners hear without subscribing of what needs someone to act: a short reserve, a node gone
+// dark or silent (a visit, or the link), and over-voltage (a hazard: cells vent).
+export const DEFAULT_OWNER_KINDS: AlertKind[] = ['reserve_short', 'node_dark', 'node_silent', 'over_voltage'];
 
 export function deliveryFor({
   member,

@@ -36,10 +36,12 @@ export function evaluateAlertRules(input: RuleInput): Verdicts {
   // A missing margin with a margin state means nothing to draw (or no recharge needed): clear.
   const marginAtLeast = (value: number) => status.margin === null || status.margin >= value;
   const verdicts: Verdicts = {
-    reserve_short: { active: state === 'short', clear: reporting && state !== 'short' && marginAtLeast(thresholds.thin + MARGIN_CLEAR_BAND) },
+    // Once the node is dark the dark alert speaks for it: a short or thin alert about a brownout
+    // that has happened is cleared, not left open beside it.
+    reserve_short: { active: state === 'short', clear: state === 'dark' || (reporting && state !== 'short' && marginAtLeast(thresholds.thin + MARGIN_CLEAR_BAND)) },
     // Opened while thin, kept while thin or short, cleared once steady with room to spare.
     reserve_thin: input.alertOnThin
-      ? { active: state === 'thin', clear: state === 'steady' && marginAtLeast(thresholds.steady + MARGIN_CLEAR_BAND) }
+      ? { active: state === 'thin', clear: state === 'dark' || (state === 'steady' && marginAtLeast(thresholds.steady + MARGIN_CLEAR_BAND)) }
       : { active: false, clear: true },
     node_dark: { active: state === 'dark', clear: reporting },
     node_silent: { active: state === 'silent', clear: reporting },

@@ -18,6 +18,7 @@ export function nextReportSeconds({
   windowSeconds,
   floorVolts,
   configuredMargin,
+  drawScale = 1,
 }: {
   bank: BankSpec;
   converter: ConverterSpec;
@@ -29,6 +30,8 @@ export function nextReportSeconds({
   floorVolts?: number;
   /** The margin at the configured interval, if already computed (the caller's own evaluation). */
   configuredMargin?: number;
+  /** The measured ÷ modelled draw to project with (see marginOverWindow). */
+  drawScale?: number;
 }): number {
   const model = modelBank({ bank });
   const floor = floorVolts ?? solveBurstFloor({ bank: model, converter, load }).volts;
@@ -37,7 +40,7 @@ export function nextReportSeconds({
   const holds = (intervalSeconds: number) =>
     (intervalSeconds === configured && configuredMargin !== undefined
       ? configuredMargin
-      : marginOverWindow({ bank: model, converter, load, volts, windowSeconds, floorVolts: floor, intervalSeconds }).margin) >= 1;
+      : marginOverWindow({ bank: model, converter, load, volts, windowSeconds, floorVolts: floor, intervalSeconds, drawScale }).margin) >= 1;
   if (holds(configured) || maximum <= configured) return configured;
   if (!holds(maximum)) return maximum;
   let failing = configured; // margin < 1 here

@@ -24,6 +24,11 @@ export interface NodeInput {
   volts: number;
   at: Date;
   thresholds?: StateThresholds;
+  /**
+   * Measured ÷ modelled draw to project the night with, when the node drew far more than its
+   * settings explain (see drawScaleFrom); 1, or absent, projects with the load profile.
+   */
+  drawScale?: number;
 }
 
 /** The model's answer for one node, field for field the reply of POST /api/v1/model/evaluate. */
@@ -57,7 +62,8 @@ export function evaluateNode(input: NodeInput): NodeEvaluation {
   // and the brownout are never flattered by it. The energy and the short-circuit current keep
   // the reading as it is (they are cautions, and higher is the safe side).
   const creditedVolts = Math.min(volts, bank.maxVolts);
-  const result = marginOverWindow({ bank, converter, load, volts: creditedVolts, windowSeconds, floorVolts });
+  const drawScale = input.drawScale ?? 1;
+  const result = marginOverWindow({ bank, converter, load, volts: creditedVolts, windowSeconds, floorVolts, drawScale });
   const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts });
   return {
     energyJoules: energyJoules({ farads: bank.farads, volts }),
@@ -74,7 +80,23 @@ export function evaluateNode(input: NodeInput): NodeEvaluation {
     nextReportSeconds: nextReportSeconds({
       bank: input.bank, converter, load, volts: creditedVolts, windowSeconds, floorVolts,
       configuredMargin: Number.isInteger(load.intervalSeconds) ? result.margin : undefined,
+      drawScale,
     }),
     shortCircuitAmps: shortCircuitAmps({ volts, esrOhms: bank.esrOhms }),
   };
+}
+
+/** Above this measured ÷ modelled ratio the night is projected with the measured draw (the draw-anomaly line). */
+export const PROJECT_WITH_MEASURED_ABOVE = 1.3;
+const MAX_DRAW_SCALE = 20;
+
+/**
+ * The draw scale a node's projection uses: last night's measured ÷ modelled draw when it is
+ * over 1.3 (a node stuck awake, leaking or aged cells: its settings no longer explain what it
+ * draws), else 1. A smaller excess is left to the model, so a noisy fit does not move margins.
+ */
+export function drawScaleFrom({ measuredWatts, modelledWatts }: { measuredWatts: number | null | undefined; modelledWatts: number | null | undefined }): number {
+  if (measuredWatts == null || modelledWatts == null || !(modelledWatts > 0) || !Number.isFinite(measuredWatts)) return 1;
+  const ratio = measuredWatts / modelledWatts;
+  return ratio > PROJECT_WITH_MEASURED_ABOVE ? Math.min(ratio, MAX_DRAW_SCALE) : 1;
 }

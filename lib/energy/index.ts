@@ -19,7 +19,7 @@ export { nightAfter, longestNight, type Night } from './nights';
 export { marginOverWindow, nightMargin, type MarginResult } from './margin';
 export { stateFromMargin } from './state';
 export { nextReportSeconds } from './cadence';
-export { evaluateNode, type NodeInput, type NodeEvaluation } from './evaluate';
+export { drawScaleFrom, evaluateNode, PROJECT_WITH_MEASURED_ABOVE, type NodeInput, type NodeEvaluation } from './evaluate';
 export {
   fitEnergySlope,
   harvestWatts,

@@ -31,6 +31,7 @@ export function marginOverWindow({
   windowSeconds,
   floorVolts,
   intervalSeconds = load.intervalSeconds,
+  drawScale = 1,
 }: {
   bank: BankModel;
   converter: ConverterSpec;
@@ -39,9 +40,12 @@ export function marginOverWindow({
   windowSeconds: number;
   floorVolts: number;
   intervalSeconds?: number;
+  /** The measured ÷ modelled draw to project with (1: the load profile as it stands). */
+  drawScale?: number;
 }): { reserveJoules: number; drawJoules: number; margin: number; brownoutSeconds: number | null } {
   const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts, intervalSeconds });
-  const bankWattsAt = bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps });
+  const modelled = bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps });
+  const bankWattsAt = drawScale === 1 ? modelled : (v: number) => drawScale * modelled(v);
   const reserve = reserveJoules({ farads: bank.farads, volts, burstFloorVolts: floorVolts });
   if (reserve <= 0) {
     const drawJoules = Math.max(0, bankWattsAt(floorVolts)) * windowSeconds;

@@ -7,6 +7,7 @@ import { db } from '../db/knex';
 import { requireSecret } from '../env';
 import { ProblemError } from '../errors';
 import type { NodeRow, SiteRow } from '../status/node-spec';
+import { drawScaleFrom } from '../energy/evaluate';
 
 /**
  * The node comes from the token, never from the body. A token must be one we signed (HS256
@@ -40,7 +41,7 @@ const lastTouched = new Map<string, number>();
 // runs for every post, and building it with the query builder each time was a measurable part
 // of the route's CPU). Each post's credential must also belong to the node its token names.
 const CONTEXT_SQL = `SELECT n.*, c.id AS credential_row_id, c.credential_id AS credential_key, s.lat, s.lon, s.time_zone, s.recharge_elevation_deg,
-    o.steady_margin, o.thin_margin, st.last_reading_at, st.state, st.next_report_s
+    o.steady_margin, o.thin_margin, st.last_reading_at, st.state, st.next_report_s, st.measured_watts, st.modelled_watts
   FROM device_credentials c
   JOIN nodes n ON n.id = c.node_id
   JOIN sites s ON s.id = n.site_id
@@ -59,11 +60,14 @@ export interface DeviceContext {
   lastReadingAt: Date | null;
   state: string | null;
   nextReportSeconds: number | null;
+  /** The measured ÷ modelled draw the margin pass last found (drawScaleFrom), for the projection. */
+  drawScale: number;
 }
 
 type ContextRow = NodeRow & Omit<SiteRow, 'id'> & {
   credential_row_id: number; credential_key: string; steady_margin: number; thin_margin: number;
   last_reading_at: Date | null; state: string | null; next_report_s: number | null;
+  measured_watts: number | null; modelled_watts: number | null;
 };
 
 export async function authenticateDevice(request: IngestRequest): Promise<DeviceContext> {
@@ -85,6 +89,7 @@ export async function authenticateDevice(request: IngestRequest): Promise<Device
     lastReadingAt: row.last_reading_at ? new Date(row.last_reading_at) : null,
     state: row.state ?? null,
     nextReportSeconds: row.next_report_s ?? null,
+    drawScale: drawScaleFrom({ measuredWatts: row.measured_watts, modelledWatts: row.modelled_watts }),
   };
 }
 

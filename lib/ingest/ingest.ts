@@ -67,6 +67,7 @@ function statusAfter(device: DeviceContext, fresh: NormalizedReading[], now: Dat
     latest: { t: newest.t, volts: calibratedVolts(device.node, newest.v), panelVolts: newest.vp },
     now,
     thresholds: device.thresholds,
+    drawScale: device.drawScale,
   });
 }
 

@@ -17,11 +17,14 @@ export function projectDischarge({
   volts,
   at,
   steps = PROJECTION_STEPS,
+  drawScale = 1,
 }: {
   spec: { bank: BankSpec; converter: ConverterSpec; load: LoadSpec; site: SiteSpec };
   volts: number;
   at: Date;
   steps?: number;
+  /** Measured ÷ modelled draw to project with (drawScaleFrom), as the status does. */
+  drawScale?: number;
 }): ProjectionWire {
   const bank = modelBank({ bank: spec.bank });
   const floorVolts = solveBurstFloor({ bank, converter: spec.converter, load: spec.load }).volts;
@@ -30,7 +33,7 @@ export function projectDischarge({
   const atSeconds = at.getTime() / 1000;
   const rechargeSeconds = rechargeAt ? rechargeAt.getTime() / 1000 : null;
   const { points, floorSeconds } = volts > floorVolts
-    ? traceToFloor({ spec, farads: bank.farads, leakageAmps: bank.leakageAmps, volts, floorVolts, windowSeconds, steps })
+    ? traceToFloor({ spec, farads: bank.farads, leakageAmps: bank.leakageAmps, volts, floorVolts, windowSeconds, steps, drawScale })
     : { points: [{ t: 0, volts }], floorSeconds: 0 };
   // Browned out: the bank reaches the floor within the window (as marginOverWindow decides it).
   const brownout = floorSeconds <= windowSeconds;
@@ -54,14 +57,16 @@ function traceToFloor(opts: {
   floorVolts: number;
   windowSeconds: number;
   steps: number;
+  drawScale: number;
 }): { points: { t: number; volts: number }[]; floorSeconds: number } {
   const { converter, load } = opts.spec;
   const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts });
+  const modelled = bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: opts.leakageAmps });
   const table = buildDischargeTable({
     farads: opts.farads,
     fromVolts: opts.volts,
     downToVolts: opts.floorVolts,
-    bankWattsAt: bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: opts.leakageAmps }),
+    bankWattsAt: opts.drawScale === 1 ? modelled : (v: number) => opts.drawScale * modelled(v),
     breakVolts: efficiencyBreakVolts({ efficiency: converter.efficiency }),
   });
   const stepSeconds = Math.max(1, opts.windowSeconds / opts.steps);

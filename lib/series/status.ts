@@ -1,5 +1,5 @@
 import { measureLatestNight } from '../alerts/night-draw';
-import type { StateThresholds, VoltageSample } from '../energy';
+import { drawScaleFrom, type StateThresholds, type VoltageSample } from '../energy';
 import { deriveNodeStatus } from '../status/derive-status';
 import type { NodeModelSpec } from '../status/node-spec';
 import { bankFigures } from './bank-figures';
@@ -29,8 +29,10 @@ export function buildStatusReply({
   samples: VoltageSample[];
   now: Date;
 }): StatusReply {
-  const s = deriveNodeStatus({ spec, latest, now, thresholds, lastAdvisedIntervalSeconds: advisedSeconds });
   const night = latest ? measureLatestNight({ spec, samples, now }) : null;
+  // The same projection the margin pass stores: with the measured draw when it is far above the model.
+  const drawScale = drawScaleFrom({ measuredWatts: night?.measuredWatts, modelledWatts: night?.modelledWatts });
+  const s = deriveNodeStatus({ spec, latest, now, thresholds, lastAdvisedIntervalSeconds: advisedSeconds, drawScale });
   const sec = (d: Date | null) => (d ? d.getTime() / 1000 : null);
   return {
     time_unit: 's',
@@ -58,6 +60,7 @@ export function buildStatusReply({
           night_end_at: night.endAt.getTime() / 1000,
         }
       : null,
-    projection: latest ? projectDischarge({ spec, volts: latest.volts, at: latest.t }) : null,
+    draw_scale: drawScale,
+    projection: latest ? projectDischarge({ spec, volts: latest.volts, at: latest.t, drawScale }) : null,
   };
 }

@@ -91,6 +91,8 @@ export interface StatusReply {
   evaluated_at: number;
   bank: BankFigures;
   measured: MeasuredDrawWire | null;
+  /** The factor the margin, brownout and projection were worked out with: measured ÷ modelled draw when over 1.3, else 1. */
+  draw_scale: number;
   projection: ProjectionWire | null;
 }
 
@@ -123,5 +125,7 @@ export interface NightsReply {
   node_name: string;
   time_zone: string;
   burst_floor_volts: number;
+  /** The bank's rated maximum, ns·Vr. */
+  max_volts: number;
   nights: NightRowWire[];
 }

@@ -5,8 +5,8 @@ import type { NodeModelSpec } from './node-spec';
 /**
  * A node's latest status from its latest reading. The margin states come from the energy
  * model; `dark`, `silent` and `new` come from the reading history: a node quiet for more than
- * three report intervals is `dark` when it went quiet at or near its burst floor (or after
- * its projected brownout), otherwise `silent`. A node whose projected brownout has passed is
+ * three report intervals is `dark` when it went quiet at or near its burst floor, after its
+ * projected brownout or while projected short, otherwise `silent`. A node whose projected brownout has passed is
  * `dark` sooner, as soon as it has missed a report since: left `short`, it would keep telling
  * the deployer about a brownout in the past tense it cannot have.
  */
@@ -14,7 +14,7 @@ export const QUIET_INTERVALS = 3;
 /** Past its projected brownout, quiet for this many expected intervals is a missed report. */
 export const MISSED_REPORT_INTERVALS = 1.5;
 // "Near the floor": within this fraction of the span from the floor to full.
-const NEAR_FLOOR_FRACTION = 0.1;
+export const NEAR_FLOOR_FRACTION = 0.1;
 
 export interface LatestReading {
   t: Date;
@@ -45,6 +45,8 @@ export function deriveNodeStatus(opts: {
   now: Date;
   thresholds: StateThresholds;
   lastAdvisedIntervalSeconds?: number | null;
+  /** Measured ÷ modelled draw to project with (drawScaleFrom); 1 when absent. */
+  drawScale?: number;
 }): DerivedStatus {
   const { spec, latest, now } = opts;
   if (!latest) {
@@ -53,7 +55,7 @@ export function deriveNodeStatus(opts: {
       reserve_joules: null, margin: null, load_watts: null, recharge_at: null, brownout_at: null, next_report_s: null, evaluated_at: now,
     };
   }
-  const e = evaluateNode({ ...spec, volts: latest.volts, at: latest.t, thresholds: opts.thresholds });
+  const e = evaluateNode({ ...spec, volts: latest.volts, at: latest.t, thresholds: opts.thresholds, drawScale: opts.drawScale });
   const expectedInterval = Math.max(spec.load.intervalSeconds, opts.lastAdvisedIntervalSeconds ?? 0, e.nextReportSeconds);
   const quietSeconds = (now.getTime() - latest.t.getTime()) / 1000;
   let state: NodeState = e.state;
@@ -63,7 +65,8 @@ export function deriveNodeStatus(opts: {
   } else if (quietSeconds > QUIET_INTERVALS * expectedInterval) {
     const maxVolts = spec.bank.cellsSeries * spec.bank.cellRatedVolts;
     const nearFloor = latest.volts <= e.burstFloorVolts + NEAR_FLOOR_FRACTION * (maxVolts - e.burstFloorVolts);
-    state = nearFloor || brownedOutByNow ? 'dark' : 'silent';
+    // A node already projected short is not "healthy" when it goes quiet: presumed browned out.
+    state = nearFloor || brownedOutByNow || e.state === 'short' ? 'dark' : 'silent';
   }
   return {
     state,

@@ -42,6 +42,16 @@ describe('GET /api/v1/fleet', () => {
       .filter((n: { state: string; brownout_at: string | null }) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) > Date.parse(res.body.generated_at))
       .map((n: { brownout_at: string }) => Date.parse(n.brownout_at));
     expect(earliest ? Date.parse(earliest.at) : null).toBe(shortTimes.length ? Math.min(...shortTimes) : null);
+    // Short nodes whose brownout has already passed are listed apart, soonest first; a bank over
+    // 98 % of its rating is listed as a hazard (derived here from the rows themselves).
+    type Row = { id: number; state: string; brownout_at: string | null; volts: number | null; max_volts: number };
+    const overdue = (nodes as Row[])
+      .filter((n) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) <= Date.parse(res.body.generated_at))
+      .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!));
+    expect(res.body.overdue_brownouts.map((o: { node_id: number }) => o.node_id)).toEqual(overdue.map((n) => n.id));
+    expect(res.body.over_voltage.map((o: { node_id: number }) => o.node_id).sort()).toEqual(
+      (nodes as Row[]).filter((n) => n.volts !== null && n.volts > 0.98 * n.max_volts).map((n) => n.id).sort(),
+    );
   });
 
   it('reports state of charge by energy, not by volts: (V² − Vcut²)/(Vmax² − Vcut²)', async () => {

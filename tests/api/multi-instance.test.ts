@@ -1,3 +1,4 @@
+import { DEFAULT_OWNER_KINDS } from '@/lib/alerts/recipients';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
@@ -33,9 +34,9 @@ const PLAN: { key: string; org: number; minutesAgo: number; margin?: number; sta
   { key: 'dark-b', org: 1, minutesAgo: 240, state: 'dark', kinds: ['node_dark'] }, // just above its burst floor, then quiet
   { key: 'steady-b', org: 1, minutesAgo: 2, margin: 3, state: 'steady', kinds: [] },
 ];
-// The deployers subscribe to these; owners keep the default (short alerts only).
+// The deployers subscribe to these; owners keep the default (DEFAULT_OWNER_KINDS).
 const DEPLOYER_KINDS: Kind[] = ['reserve_short', 'node_silent', 'node_dark'];
-const mailsOf = (kinds: Kind[]) => kinds.flatMap((k) => [...(k === 'reserve_short' ? [`${k}→owner`] : []), `${k}→deployer`]);
+const mailsOf = (kinds: Kind[]) => kinds.flatMap((k) => [...(DEFAULT_OWNER_KINDS.includes(k) ? [`${k}→owner`] : []), `${k}→deployer`]);
 const EXPECTED_MAILS = PLAN.flatMap((p) => mailsOf(p.kinds)).length;
 const ROUNDS = 6;
 const PER_ROUND = 2;

@@ -87,9 +87,11 @@ describe('the node page in Chromium', () => {
       const id = (await db()('nodes').where({ name }).first('id')).id;
       await openNode(page, id);
       await expect(page.getByTestId('tonight-sentence').textContent()).resolves.toMatch(/brown out|browned out|recharge|Quiet/);
-      // DESIGN.md §8: both browned out on a recent night; the night table says where each fell silent.
+      // DESIGN.md §8: both browned out on a recent night; the night table says when, near the floor.
       await page.getByTestId('night-row').first().waitFor();
-      expect(await page.locator('[data-testid="night-row"] [data-testid="night-quiet"]').count(), name).toBeGreaterThan(0);
+      const quiet = page.locator('[data-testid="night-row"] [data-testid="night-quiet"]');
+      expect(await quiet.count(), name).toBeGreaterThan(0);
+      await expect(quiet.first().textContent()).resolves.toMatch(/^browned out after \d\d:\d\d$/);
       await screenshot(page, `node-page-${name}`);
     }
     // a node with no reading yet: the empty state, not a broken chart

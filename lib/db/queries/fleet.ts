@@ -1,4 +1,5 @@
 import { db } from '../knex';
+import { overVoltageFraction } from '../../alerts/kinds';
 import { stateOfCharge } from '../../energy';
 import { NODE_STATE_INFO, NODE_STATES, type NodeState } from '../../config/node-states';
 
@@ -80,6 +81,10 @@ export interface FleetView {
   generated_at: string;
   counts: Record<NodeState, number>;
   earliest_brownout: { node_id: number; name: string; at: string; time_zone: string } | null;
+  /** Short nodes whose projected brownout has passed with no report since (not yet called dark). */
+  overdue_brownouts: { node_id: number; name: string; at: string; time_zone: string; last_reading_at: string | null }[];
+  /** Nodes whose bank reads over 98 % of its rating: a hazard, whatever their margin. */
+  over_voltage: { node_id: number; name: string; volts: number; max_volts: number }[];
   nodes: FleetNodeWire[];
 }
 
@@ -114,10 +119,19 @@ export async function loadFleetView(orgId: number, now = new Date()): Promise<Fl
   const earliest = nodes
     .filter((n) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) > now.getTime())
     .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!))[0];
+  const overdue = nodes
+    .filter((n) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) <= now.getTime())
+    .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!))
+    .map((n) => ({ node_id: n.id, name: n.name, at: n.brownout_at!, time_zone: n.time_zone, last_reading_at: n.last_reading_at }));
+  const overVoltage = nodes
+    .filter((n) => overVoltageFraction({ volts: n.volts, maxVolts: n.max_volts }) !== null)
+    .map((n) => ({ node_id: n.id, name: n.name, volts: n.volts!, max_volts: n.max_volts }));
   return {
     generated_at: now.toISOString(),
     counts,
     earliest_brownout: earliest ? { node_id: earliest.id, name: earliest.name, at: earliest.brownout_at!, time_zone: earliest.time_zone } : null,
+    overdue_brownouts: overdue,
+    over_voltage: overVoltage,
     nodes,
   };
 }

@@ -26,6 +26,7 @@ export async function loadNightTable({ orgId, nodeId, count = DEFAULT_NIGHT_COUN
     node_name: loaded.node.name,
     time_zone: loaded.site.time_zone,
     burst_floor_volts: bankFigures({ spec: loaded.spec }).burst_floor_volts,
+    max_volts: bankFigures({ spec: loaded.spec }).max_volts,
     nights: buildNightRows({ spec: loaded.spec, nights, samples, now }),
   };
 }

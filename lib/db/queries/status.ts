@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { drawScaleFrom } from '../../energy';
 import { db } from '../knex';
 import { deriveNodeStatus, type DerivedStatus } from '../../status/derive-status';
 import { calibratedVolts, modelSpecFromRows, type NodeRow, type SiteRow } from '../../status/node-spec';
@@ -22,11 +23,14 @@ export async function refreshNodeStatus(nodeId: number, now = new Date(), knex: 
   const loaded = await loadNodeForModel(nodeId, knex);
   if (!loaded) return null;
   const last = await latestReading(nodeId, knex);
+  const stored = await knex('node_status').where({ node_id: nodeId }).first('measured_watts', 'modelled_watts');
   const status = deriveNodeStatus({
     spec: modelSpecFromRows(loaded.node, loaded.site),
     latest: last ? { t: new Date(last.t), volts: calibratedVolts(loaded.node, last.v), panelVolts: last.vp } : null,
     now,
     thresholds: loaded.thresholds,
+    // As the ingest does: the last measured night's excess draw, until the next pass measures again.
+    drawScale: drawScaleFrom({ measuredWatts: stored?.measured_watts, modelledWatts: stored?.modelled_watts }),
   });
   // Guarded like the ingest's write: a reading stored meanwhile keeps its own, newer status.
   const { sql, bindings } = guardedStatusUpsert({ node_id: nodeId, org_id: loaded.node.org_id, ...status });

@@ -36,7 +36,10 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
     ['Recharge', recharge ?? 'not within 7 days'],
     ['Last reading', localTime(detail.last_reading_at, timeZone) ?? 'none'],
   ];
-  const cause = likelyCause(detail);
+  // The draw explains a reserve, not a bank above its rating.
+  const cause = input.kind === 'over_voltage'
+    ? 'a charger that does not regulate (or regulates too high), bank settings that do not match the bank (cells in series, cell rating), or a calibration that reads high.'
+    : likelyCause(detail);
   const link = nodeLink(input.appUrl, input.nodeId);
   const intro = `${oneLine(input.nodeName)} — ${info.title}.`;
   const text = [

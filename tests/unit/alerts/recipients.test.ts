@@ -5,11 +5,13 @@ const owner: MemberContact = { membershipId: 1, role: 'owner', email: 'o@test.ex
 const deployer: MemberContact = { membershipId: 2, role: 'deployer', email: 'd@test.example', name: 'D' };
 const viewer: MemberContact = { membershipId: 3, role: 'viewer', email: 'v@test.example', name: 'V' };
 
-describe('recipients (issue 6: per site and kind, immediate or digest; owners get short and over-voltage by default)', () => {
-  it('an owner with no rows gets short and over-voltage alerts immediately and nothing else; others get nothing by default', () => {
+describe('recipients (issue 6: per site and kind, immediate or digest; owners get short, dark, silent and over-voltage by default)', () => {
+  it('an owner with no rows gets short, dark, silent and over-voltage alerts immediately and nothing else; others get nothing by default', () => {
     expect(deliveryFor({ member: owner, subscriptions: [], siteId: 5, kind: 'reserve_short' })).toBe('immediate');
     expect(deliveryFor({ member: owner, subscriptions: [], siteId: 5, kind: 'over_voltage' })).toBe('immediate');
-    expect(deliveryFor({ member: owner, subscriptions: [], siteId: 5, kind: 'node_dark' })).toBeNull();
+    expect(deliveryFor({ member: owner, subscriptions: [], siteId: 5, kind: 'node_dark' })).toBe('immediate');
+    expect(deliveryFor({ member: owner, subscriptions: [], siteId: 5, kind: 'node_silent' })).toBe('immediate');
+    expect(deliveryFor({ member: owner, subscriptions: [], siteId: 5, kind: 'draw_anomaly' })).toBeNull();
     expect(deliveryFor({ member: deployer, subscriptions: [], siteId: 5, kind: 'reserve_short' })).toBeNull();
   });
 

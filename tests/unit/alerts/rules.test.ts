@@ -22,10 +22,17 @@ describe('alert rules (the thresholds of DESIGN.md §4 and issue 6)', () => {
     expect(evaluateAlertRules(base({ status: statusWith({ state: 'thin', margin: 1.1 }) })).reserve_short).toEqual({ active: false, clear: true });
   });
 
-  it('a dark or silent node keeps the short alert as it is (no fresh margin to judge by)', () => {
-    for (const state of ['dark', 'silent', 'new'] as const) {
+  it('a silent or new node keeps the short alert as it is (no fresh margin to judge by)', () => {
+    for (const state of ['silent', 'new'] as const) {
       expect(evaluateAlertRules(base({ status: statusWith({ state, margin: 3 }) })).reserve_short).toEqual({ active: false, clear: false });
     }
+  });
+
+  it('a dark node clears its short and thin alerts: the brownout happened and the dark alert speaks for it', () => {
+    const dark = evaluateAlertRules(base({ alertOnThin: true, status: statusWith({ state: 'dark', margin: 0.2 }) }));
+    expect(dark.reserve_short).toEqual({ active: false, clear: true });
+    expect(dark.reserve_thin).toEqual({ active: false, clear: true });
+    expect(dark.node_dark.active).toBe(true);
   });
 
   it('reserve_thin only when the organization asks for it; opened thin, kept while short, cleared at steady + 0.1', () => {

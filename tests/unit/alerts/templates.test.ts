@@ -40,6 +40,7 @@ describe('the alert e-mail', () => {
     const mail = buildAlertMail({ kind: 'over_voltage', detail: over, nodeId: 7, nodeName: 'N-7', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x' });
     expect(mail.subject).toContain('over-voltage (9.50 V, 176 % of its rated 5.40 V)');
     expect(mail.text).toMatch(/Bank:\s+9\.50 V \(176 % of the rated 5\.40 V\)/);
+    expect(mail.text).toMatch(/Likely cause: a charger that does not regulate/);
     expect(buildAlertMail({ kind: 'reserve_short', detail, nodeId: 1, nodeName: 'N', siteName: 'S', timeZone: 'UTC', appUrl: 'http://x' }).text).toMatch(/Night margin:\s+0\.62×/);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { averageOutputWatts, bankWatts, evaluateNode, nightMargin } from '@/lib/energy';
+import { averageOutputWatts, bankWatts, drawScaleFrom, evaluateNode, nightMargin } from '@/lib/energy';
 import { bank, converter, load, site } from './fixtures';
 
 const at = new Date('2026-12-21T17:00:00Z');
@@ -53,5 +53,29 @@ describe('evaluateNode', () => {
     // The cautions keep the reading as it is: energy ½CV² and the short-circuit current V/ESR.
     expect(over.energyJoules).toBeCloseTo(0.5 * 150 * 9.5 ** 2, 9);
     expect(over.shortCircuitAmps).toBeCloseTo(9.5 / ((2 * 0.02) / 3), 9);
+  });
+
+  it('projects with the measured draw when asked: k times the draw gives 1/k the margin (derived here)', () => {
+    // No leakage and a constant efficiency: the bank-side power is the same at every voltage, so
+    // over a window without brownout the draw is P·T and k·P·T with the scale (margin ∝ 1/k).
+    const flat = { ...bank, cellLeakageAmps: 0 };
+    const plain = evaluateNode({ bank: flat, converter, load, site, volts: 5.4, at });
+    const twice = evaluateNode({ bank: flat, converter, load, site, volts: 5.4, at, drawScale: 2 });
+    expect(plain.brownoutAt).toBeNull();
+    expect(twice.brownoutAt).toBeNull();
+    expect(twice.margin).toBeCloseTo(plain.margin / 2, 6);
+    expect(evaluateNode({ bank: flat, converter, load, site, volts: 5.4, at, drawScale: 1 })).toEqual(plain);
+    // Low in the bank, a larger draw brings the brownout sooner.
+    const low = evaluateNode({ bank, converter, load, site, volts: 1.5, at });
+    const lowTwice = evaluateNode({ bank, converter, load, site, volts: 1.5, at, drawScale: 2 });
+    expect(lowTwice.brownoutAt!.getTime()).toBeLessThan(low.brownoutAt!.getTime());
+  });
+
+  it('uses the measured draw only when it is over 1.3 times the model (the draw-anomaly line)', () => {
+    expect(drawScaleFrom({ measuredWatts: 0.0024, modelledWatts: 0.002 })).toBe(1); // 1.2×
+    expect(drawScaleFrom({ measuredWatts: 0.00534, modelledWatts: 0.002 })).toBeCloseTo(2.67, 9);
+    expect(drawScaleFrom({ measuredWatts: null, modelledWatts: 0.002 })).toBe(1);
+    expect(drawScaleFrom({ measuredWatts: 0.003, modelledWatts: 0 })).toBe(1);
+    expect(drawScaleFrom({ measuredWatts: 1, modelledWatts: 0.001 })).toBe(20); // capped
   });
 });
