@@ -43,7 +43,8 @@ export function resolveProfile(name: ProfileName, root = process.cwd(), slot = 0
     dbName: name === 'demo' ? 'duskwatch' : 'duskwatch_test',
     appPort: PORTS[name].app + offset,
     smtpPort: PORTS[name].smtp + offset,
-    distDir: suffix ? `.next-test${suffix}` : '.next',
+    // Tests build into their own folder, so `npm test` never swaps the build under a running demo.
+    distDir: name === 'test' ? `.next-test${suffix}` : '.next',
     // The demo's catcher writes where the README says: .data/mail/.
     mailDir: name === 'demo' ? path.join(root, '.data', 'mail') : path.join(dataDir, 'mail'),
   };
