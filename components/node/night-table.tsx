@@ -105,7 +105,8 @@ function DawnEnergy({ n }: { n: NightRowWire }) {
 function Outcome({ n, t, nearFloorVolts }: { n: NightRowWire; t: (s: number | null) => string; nearFloorVolts: number }) {
   if (n.readings === 0) return <span className="text-ink-faint">no readings</span>;
   if (n.quiet_from !== null) {
-    const nearFloor = n.dawn_volts !== null && n.dawn_volts <= nearFloorVolts;
+    // Judged at the last reading before the silence: the bank may have recovered by dawn.
+    const nearFloor = n.quiet_volts !== null && n.quiet_volts <= nearFloorVolts;
     return (
       <span className="font-bold text-hazard" data-testid="night-quiet">
         {nearFloor ? `browned out after ${t(n.quiet_from)}` : `quiet from ${t(n.quiet_from)}`}

@@ -33,6 +33,7 @@ export function buildNightRows({
     const draw = drawOverWindow({ spec, samples: inside });
     const margin = first ? nightMargin({ ...spec, volts: first.volts, at: new Date(ms(first.t)), rechargeAt: night.end }) : null;
     const quietFrom = firstSilence({ times: inside.map((x) => ms(x.t)), until: Math.min(night.end.getTime(), now.getTime()), intervalSeconds: spec.load.intervalSeconds });
+    const quietReading = quietFrom === null ? undefined : inside.find((x) => ms(x.t) === quietFrom);
     return {
       dusk_at: night.start.getTime() / 1000,
       dawn_at: night.end.getTime() / 1000,
@@ -51,6 +52,7 @@ export function buildNightRows({
       margin_at_dusk: margin && Number.isFinite(margin.margin) ? margin.margin : null,
       projected_brownout_at: margin?.brownoutAt ? margin.brownoutAt.getTime() / 1000 : null,
       quiet_from: quietFrom === null ? null : quietFrom / 1000,
+      quiet_volts: quietReading ? quietReading.volts : null,
     };
   });
 }

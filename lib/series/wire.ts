@@ -117,6 +117,8 @@ export interface NightRowWire {
   projected_brownout_at: number | null;
   /** The last reading before the node fell silent inside the night (over 3 report intervals), or null. */
   quiet_from: number | null;
+  /** The bank volts at that last reading (near the burst floor: a brownout; else a silence). */
+  quiet_volts: number | null;
 }
 
 export interface NightsReply {

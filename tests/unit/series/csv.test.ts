@@ -18,13 +18,13 @@ describe('CSV lines (RFC 4180)', () => {
       dusk_at: Date.parse('2026-12-01T00:30:00Z') / 1000, dawn_at: Date.parse('2026-12-01T16:00:00Z') / 1000, complete: true, readings: 90,
       dusk_reading_at: null, dawn_reading_at: null, dusk_volts: 4.2, dawn_volts: 3.1, dusk_energy_joules: 220.5, dawn_energy_joules: 120.1,
       min_volts: 3.1, measured_watts: 0.0021, modelled_watts: 0.0018, draw_ratio: 1.1667, margin_at_dusk: 2.5, projected_brownout_at: null,
-      quiet_from: Date.parse('2026-12-01T11:15:00Z') / 1000,
+      quiet_from: Date.parse('2026-12-01T11:15:00Z') / 1000, quiet_volts: 0.812,
     }] });
     const [header, row, end] = csv.split('\r\n');
     expect(header.split(',')).toEqual(NIGHTS_CSV_HEADER);
     // 00:30 UTC on 1 December is 16:30 PST on 30 November (UTC−8 in winter: common practice)
     expect(row.split(',').slice(0, 4)).toEqual(['2026-12-01T00:30:00.000Z', '2026-12-01T16:00:00.000Z', '2026-11-30 16:30 PST', '2026-12-01 08:00 PST']);
-    expect(row.split(',').at(-1)).toBe('2026-12-01T11:15:00.000Z');
+    expect(row.split(',').slice(-2)).toEqual(['2026-12-01T11:15:00.000Z', '0.812']);
     expect(end).toBe('');
   });
 });

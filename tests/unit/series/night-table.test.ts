@@ -49,6 +49,7 @@ describe('buildNightRows', () => {
     const cut = start.getTime() + 5 * 3600_000;
     const [dropped] = buildNightRows({ spec, nights: [{ start, end }], samples: all.filter((x) => x.t.getTime() <= cut), now: new Date('2026-12-22T00:00:00Z') });
     expect(dropped.quiet_from).toBe(cut / 1000);
+    expect(dropped.quiet_volts).toBe(all.find((x) => x.t.getTime() === cut)!.volts);
     // A hole from 3 h to 6 h, then reports again until dawn: silent from the last one before it.
     const holeFrom = start.getTime() + 3 * 3600_000;
     const withHole = all.filter((x) => x.t.getTime() <= holeFrom || x.t.getTime() >= start.getTime() + 6 * 3600_000);
