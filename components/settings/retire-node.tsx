@@ -2,6 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { ConfirmDanger } from '@/components/ui/confirm-danger';
 import { apiFetch } from '@/lib/client/api';
 
 /**
@@ -28,12 +29,9 @@ export function RetireNode({ nodeId, name }: { nodeId: number; name: string }) {
         For a node taken out of the field. It leaves the fleet and the alerts, and its device credentials stop working at once.
       </p>
       {asking ? (
-        <div role="group" aria-label={`Confirm retiring ${name}`} className="mt-3">
-          <p className="text-sm">Retire “{name}”? The device can no longer post readings, and this cannot be undone from the screens.</p>
-          <div className="mt-2 flex gap-2">
-            <button type="button" onClick={retire} disabled={busy} autoFocus className="rounded-md bg-hazard px-3 py-1.5 text-sm font-bold text-dusk-950 disabled:opacity-60" data-testid="node-retire-confirm">Retire now</button>
-            <button type="button" onClick={() => { setAsking(false); setError(null); }} className="rounded-md border border-dusk-600 px-3 py-1.5 text-sm hover:bg-dusk-800">Keep it</button>
-          </div>
+        <div className="mt-3">
+          <ConfirmDanger label={`Confirm retiring ${name}`} question={`Retire “${name}”? The device can no longer post readings, and this cannot be undone from the screens.`}
+            confirm="Retire now" onConfirm={retire} onCancel={() => { setAsking(false); setError(null); }} busy={busy} testId="node-retire-confirm" />
         </div>
       ) : (
         <button type="button" onClick={() => setAsking(true)} className="mt-3 rounded-md border border-hazard px-3 py-1.5 text-sm text-hazard hover:bg-dusk-800" data-testid="node-retire">Retire node…</button>

@@ -2,6 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
+import { ConfirmDanger } from '@/components/ui/confirm-danger';
 import { apiFetch } from '@/lib/client/api';
 
 /** Delete with an inline confirmation; the server refuses (409) while nodes stand on the site. */
@@ -18,13 +19,8 @@ export function DeleteSite({ siteId, name }: { siteId: number; name: string }) {
   return (
     <div className="max-w-2xl rounded-xl border border-dusk-700 p-4">
       {asking ? (
-        <div role="group" aria-label={`Confirm deleting ${name}`}>
-          <p className="text-sm">Delete the site “{name}”? This cannot be undone.</p>
-          <div className="mt-2 flex gap-2">
-            <button type="button" onClick={remove} autoFocus className="rounded-md bg-hazard px-3 py-1.5 text-sm font-bold text-dusk-950" data-testid="site-delete-confirm">Delete now</button>
-            <button type="button" onClick={() => { setAsking(false); setError(null); }} className="rounded-md border border-dusk-600 px-3 py-1.5 text-sm hover:bg-dusk-800">Keep it</button>
-          </div>
-        </div>
+        <ConfirmDanger label={`Confirm deleting ${name}`} question={`Delete the site “${name}”? This cannot be undone.`} confirm="Delete now"
+          onConfirm={remove} onCancel={() => { setAsking(false); setError(null); }} testId="site-delete-confirm" />
       ) : (
         <button type="button" onClick={() => setAsking(true)} className="rounded-md border border-hazard px-3 py-1.5 text-sm text-hazard hover:bg-dusk-800" data-testid="site-delete">Delete site…</button>
       )}

@@ -1,6 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeFastPool } from '@/lib/db/fast-pool';
 import { closeDb, db } from '@/lib/db/knex';
+import { deleteNode } from '@/lib/db/queries/nodes';
 import { storeAllNew } from '@/lib/ingest/store-fast';
 import type { DerivedStatus } from '@/lib/status/derive-status';
 import { createTestNode } from './helpers/fleet';
@@ -9,7 +10,11 @@ import { createTestNode } from './helpers/fleet';
 // live reading, each having read the status before the other wrote it). The status row must end
 // on the newest reading whatever the commit order (common practice: last-writer-wins by event
 // time, not by arrival).
+// The statuses written here are made up, in a node of the demo organization: it is retired
+// after, so that no fleet test finds a charge that does not follow from its settings.
+let made: { orgId: number; nodeId: number } | null = null;
 afterAll(async () => {
+  if (made) await deleteNode(made.orgId, made.nodeId);
   await closeFastPool();
   await closeDb();
 });
@@ -23,6 +28,7 @@ describe('node status after posts that commit out of order', () => {
   it('keeps the newer reading when the older post commits last', async () => {
     const node = await createTestNode('ingest-order');
     const orgId = (await db()('nodes').where({ id: node.nodeId }).first('org_id')).org_id as number;
+    made = { orgId, nodeId: node.nodeId };
     const newer = new Date(Date.now() - 60_000);
     const older = new Date(Date.now() - 3_600_000);
     const reading = (t: Date, v: number) => ({ t, v, seq: null, vp: null, temp: null, rssi: null });

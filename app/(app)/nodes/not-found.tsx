@@ -1,12 +1,5 @@
-import Link from 'next/link';
+import { NotFoundPanel } from '@/components/ui/not-found-panel';
 
-/** A missing node and another organization's node look the same: not here. */
 export default function NodeNotFound() {
-  return (
-    <div className="max-w-lg rounded-lg border border-dusk-700 bg-dusk-900 p-5" data-testid="node-not-found">
-      <h1 className="text-lg font-bold">No such node</h1>
-      <p className="mt-2 text-sm text-ink-muted">It does not exist in this organization, or it was deleted.</p>
-      <Link href="/fleet" className="mt-4 inline-block rounded-md border border-dusk-600 px-4 py-2 text-sm">Back to tonight</Link>
-    </div>
-  );
+  return <NotFoundPanel what="node" back={{ href: '/fleet', label: 'Back to tonight' }} testId="node-not-found" />;
 }

@@ -10,7 +10,7 @@ let counter = 0;
 
 export async function createTestNode(prefix = 'test-node') {
   const s = await deployer();
-  const template = await db()('nodes as n').join('organizations as o', 'o.id', 'n.org_id').where('o.slug', 'larkspur-hollow').first('n.id');
+  const template = await db()('nodes as n').join('organizations as o', 'o.id', 'n.org_id').where('o.slug', 'larkspur-hollow').whereNull('n.deleted_at').orderBy('n.id').first('n.id');
   const wire = (await s.agent.get(`/api/v1/nodes/${template.id}`)).body;
   const { id: _id, site_name: _site, ...body } = wire;
   const name = `${prefix}-${process.pid}-${Date.now()}-${counter++}`;
