@@ -12,7 +12,8 @@ const STEP_S = 300;
 let t0: number;
 
 beforeAll(async () => {
-  node = await createTestNode('export');
+  // A calibrated node (invented figures), so reported and calibrated volts differ in the export.
+  node = await createTestNode('export', { calibration: { gain: 1.004, offset_volts: -0.003 } });
   // 240 readings five minutes apart, ending an hour ago: 20 hours of made-up discharge.
   t0 = Math.floor(Date.now() / 1000 / STEP_S) * STEP_S - 3600 - COUNT * STEP_S;
   const readings = Array.from({ length: COUNT }, (_, i) => ({ t: t0 + i * STEP_S, v: Number((4.8 - i * 0.004).toFixed(3)), vp: i % 3 ? 0.2 : 5.9, seq: i }));
