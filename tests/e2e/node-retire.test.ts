@@ -56,6 +56,11 @@ describe('a node over its rating, then retired, in Chromium', () => {
     await page.locator('[data-testid="fleet-row"]').first().waitFor();
     expect(await page.locator('[data-testid="fleet-row"]', { hasText: node.body.name }).count()).toBe(0);
     expect((await page.goto(`/nodes/${node.nodeId}`))?.status()).toBe(404);
+    // The record stays: its site lists it as retired, with when.
+    await page.goto(`/sites/${node.body.site_id}`);
+    await expect(page.getByTestId('retired-node').filter({ hasText: node.body.name }).textContent()).resolves.toMatch(/retired .* · last reading /);
+    await page.getByTestId('retired-nodes').scrollIntoViewIfNeeded();
+    await screenshot(page, 'site-retired-nodes');
     // Its credential stopped working with it.
     const after = await fetch(`${appUrl()}/api/v1/readings`, {
       method: 'POST', headers: { authorization: `Bearer ${node.token}`, 'content-type': 'application/json' }, body: JSON.stringify({ v: 3 }),

@@ -25,6 +25,26 @@ export async function getSiteWire(orgId: number, siteId: number): Promise<SiteWi
   return siteToWire(row);
 }
 
+/**
+ * The site's retired nodes, kept on record (their readings stay; the site cannot be deleted
+ * while it holds them): the name they had, when they were retired, their last reading.
+ */
+export async function listRetiredNodes(orgId: number, siteId: number) {
+  const rows = await db()('nodes as n')
+    .where({ 'n.org_id': orgId, 'n.site_id': siteId })
+    .whereNotNull('n.deleted_at')
+    .orderBy('n.deleted_at', 'desc')
+    .select('n.id', 'n.name', 'n.purpose', 'n.deleted_at', db().raw('(SELECT MAX(r.t) FROM readings r WHERE r.node_id = n.id) AS last_reading_at'));
+  return rows.map((r) => ({
+    id: r.id as number,
+    // deleteNode frees the name by appending " (deleted <id>)"; the record shows the name it had.
+    name: String(r.name).replace(/ \(deleted \d+\)$/, ''),
+    purpose: (r.purpose as string | null) ?? '',
+    retired_at: new Date(r.deleted_at).toISOString(),
+    last_reading_at: r.last_reading_at ? new Date(r.last_reading_at).toISOString() : null,
+  }));
+}
+
 async function assertNameFree(trx: Knex.Transaction, orgId: number, name: string, exceptId?: number) {
   const q = trx('sites').where({ org_id: orgId, name });
   if (exceptId) q.whereNot({ id: exceptId });

@@ -3,6 +3,8 @@ import Link from 'next/link';
 import { DeleteSite } from '@/components/sites/delete-site';
 import { SiteForm } from '@/components/sites/site-form';
 import { can } from '@/lib/auth/roles';
+import { listRetiredNodes } from '@/lib/db/queries/sites';
+import { formatInTimeZone } from '@/lib/format/time';
 import { loadSitePage } from './load-site';
 
 export const metadata: Metadata = { title: 'Site' };
@@ -10,6 +12,8 @@ export const metadata: Metadata = { title: 'Site' };
 export default async function SitePage({ params }: { params: Promise<{ siteId: string }> }) {
   const { member, site } = await loadSitePage((await params).siteId);
   const { id: _id, live_nodes: nodes, ...body } = site;
+  const retired = await listRetiredNodes(member.orgId, site.id);
+  const local = (iso: string) => formatInTimeZone(new Date(iso), site.time_zone);
   return (
     <section className="flex flex-col gap-4">
       <div>
@@ -31,6 +35,23 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
           <dt className="text-ink-faint">Notes</dt><dd className="whitespace-pre-line">{site.notes || '—'}</dd>
         </dl>
       )}
+      {retired.length ? (
+        <section aria-labelledby="retired-heading" className="max-w-2xl rounded-xl border border-dusk-700 p-4" data-testid="retired-nodes">
+          <h2 id="retired-heading" className="font-bold">Retired nodes, kept on record</h2>
+          <p className="mt-1 text-sm text-ink-muted">Their readings are kept, so the site stays while it holds them. Times in {site.time_zone}.</p>
+          <ul className="mt-2 text-sm">
+            {retired.map((n) => (
+              <li key={n.id} className="border-t border-dusk-800 py-2 first:border-t-0" data-testid="retired-node">
+                <span className="font-bold">{n.name}</span>{n.purpose ? <span className="text-ink-muted"> · {n.purpose}</span> : null}
+                <span className="block text-ink-muted">
+                  retired <span className="figures">{local(n.retired_at)}</span>
+                  {n.last_reading_at ? <> · last reading <span className="figures">{local(n.last_reading_at)}</span></> : ' · never reported'}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
     </section>
   );
 }
