@@ -1,9 +1,11 @@
 'use client';
 
 import { useState } from 'react';
+// The guard's own type (a type import: nothing of the server-only module reaches the browser).
+import type { OrgChoice } from '@/lib/auth/guard';
 import { apiFetch } from '@/lib/client/api';
 
-export interface OrgChoice { id: number; name: string; role: string }
+export type { OrgChoice };
 
 /**
  * The organization the app is showing. With one membership it is just the name; with several,

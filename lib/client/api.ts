@@ -26,7 +26,6 @@ export async function apiFetch<T = unknown>(path: string, init: { method?: strin
   return { ok: false, problem: (body as Problem) ?? { title: res.statusText, status: res.status } };
 }
 
-/** Errors by field name (the last pointer segment joined with dots), plus a general message. */
 /**
  * A server message about a field the form shows in other units (a % field sent as a fraction):
  * "Must be at most 1." becomes "Must be at most 100 %."; any other message is kept.
@@ -37,6 +36,7 @@ export function inFieldUnits(message: string, { scale, unit }: { scale: number; 
   return message.replace(/^(Must be (?:at most|at least|above|below)) (-?\d+(?:\.\d+)?)\.$/, (_, words: string, n: string) => `${words} ${Number((Number(n) / scale).toPrecision(12))} ${unit}.`);
 }
 
+/** Errors by field name (the last pointer segment joined with dots), plus a general message. */
 export function fieldErrors(problem: Problem): Record<string, string> {
   const out: Record<string, string> = {};
   for (const e of problem.errors ?? []) out[e.pointer.replace(/^\//, '').replace(/\//g, '.') || '_'] = e.detail;

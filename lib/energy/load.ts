@@ -34,15 +34,21 @@ export function bankWatts({
   return outputWatts / efficiencyAt({ efficiency, volts }) + leakageAmps * volts;
 }
 
-/** The bank-side power curve for one load at one interval, for the integrators. */
+/**
+ * The bank-side power curve for one load at one interval, for the integrators; `scale` (the
+ * measured ÷ modelled draw a projection uses, 1 for the load profile as it stands) multiplies it.
+ */
 export function bankWattsCurve({
   outputWatts,
   efficiency,
   leakageAmps,
+  scale = 1,
 }: {
   outputWatts: number;
   efficiency: Efficiency;
   leakageAmps: number;
+  scale?: number;
 }): BankWattsAt {
-  return (volts) => bankWatts({ outputWatts, efficiency, leakageAmps, volts });
+  if (scale === 1) return (volts) => bankWatts({ outputWatts, efficiency, leakageAmps, volts });
+  return (volts) => scale * bankWatts({ outputWatts, efficiency, leakageAmps, volts });
 }

@@ -44,8 +44,7 @@ export function marginOverWindow({
   drawScale?: number;
 }): { reserveJoules: number; drawJoules: number; margin: number; brownoutSeconds: number | null } {
   const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts, intervalSeconds });
-  const modelled = bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps });
-  const bankWattsAt = drawScale === 1 ? modelled : (v: number) => drawScale * modelled(v);
+  const bankWattsAt = bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps, scale: drawScale });
   const reserve = reserveJoules({ farads: bank.farads, volts, burstFloorVolts: floorVolts });
   if (reserve <= 0) {
     const drawJoules = Math.max(0, bankWattsAt(floorVolts)) * windowSeconds;

@@ -61,12 +61,12 @@ function traceToFloor(opts: {
 }): { points: { t: number; volts: number }[]; floorSeconds: number } {
   const { converter, load } = opts.spec;
   const outputWatts = averageOutputWatts({ load, outputVolts: converter.outputVolts });
-  const modelled = bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: opts.leakageAmps });
+
   const table = buildDischargeTable({
     farads: opts.farads,
     fromVolts: opts.volts,
     downToVolts: opts.floorVolts,
-    bankWattsAt: opts.drawScale === 1 ? modelled : (v: number) => opts.drawScale * modelled(v),
+    bankWattsAt: bankWattsCurve({ outputWatts, efficiency: converter.efficiency, leakageAmps: opts.leakageAmps, scale: opts.drawScale }),
     breakVolts: efficiencyBreakVolts({ efficiency: converter.efficiency }),
   });
   const stepSeconds = Math.max(1, opts.windowSeconds / opts.steps);

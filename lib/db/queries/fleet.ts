@@ -116,12 +116,12 @@ export async function loadFleetView(orgId: number, now = new Date()): Promise<Fl
   for (const n of nodes) counts[n.state] += 1;
   // Only nodes still reporting and short, and only brownouts still ahead: a brownout already
   // behind us belongs to a node that is (or is about to be called) dark.
-  const earliest = nodes
-    .filter((n) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) > now.getTime())
-    .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!))[0];
-  const overdue = nodes
-    .filter((n) => n.state === 'short' && n.brownout_at && Date.parse(n.brownout_at) <= now.getTime())
-    .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!))
+  const shortBrownouts = nodes
+    .filter((n) => n.state === 'short' && n.brownout_at)
+    .sort((a, b) => Date.parse(a.brownout_at!) - Date.parse(b.brownout_at!));
+  const earliest = shortBrownouts.find((n) => Date.parse(n.brownout_at!) > now.getTime());
+  const overdue = shortBrownouts
+    .filter((n) => Date.parse(n.brownout_at!) <= now.getTime())
     .map((n) => ({ node_id: n.id, name: n.name, at: n.brownout_at!, time_zone: n.time_zone, last_reading_at: n.last_reading_at }));
   const overVoltage = nodes
     .filter((n) => overVoltageFraction({ volts: n.volts, maxVolts: n.max_volts }) !== null)

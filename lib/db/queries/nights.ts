@@ -20,13 +20,14 @@ export async function loadNightTable({ orgId, nodeId, count = DEFAULT_NIGHT_COUN
   const nights = lastNights({ windows, now, count });
   const oldest = nights.at(-1);
   const samples = oldest ? await readSamples({ loaded, from: oldest.start, to: now }) : [];
+  const bank = bankFigures({ spec: loaded.spec });
   return {
     time_unit: 's',
     node_id: nodeId,
     node_name: loaded.node.name,
     time_zone: loaded.site.time_zone,
-    burst_floor_volts: bankFigures({ spec: loaded.spec }).burst_floor_volts,
-    max_volts: bankFigures({ spec: loaded.spec }).max_volts,
+    burst_floor_volts: bank.burst_floor_volts,
+    max_volts: bank.max_volts,
     nights: buildNightRows({ spec: loaded.spec, nights, samples, now }),
   };
 }

@@ -6,16 +6,25 @@ import { calibratedVolts, modelSpecFromRows, type NodeRow, type SiteRow } from '
 import { guardedStatusUpsert } from '../../ingest/status-upsert';
 import { latestReading } from './readings';
 
-/** Loads what the model needs for one node: its row, its site, its organization's thresholds. */
+/**
+ * Loads what the model needs for one node: its row, its site, its organization's thresholds,
+ * and the draw scale from the night the last margin pass measured (drawScaleFrom).
+ */
 export async function loadNodeForModel(nodeId: number, knex: Knex | Knex.Transaction = db()) {
   const row = await knex('nodes as n')
     .join('sites as s', 's.id', 'n.site_id')
     .join('organizations as o', 'o.id', 'n.org_id')
+    .leftJoin('node_status as st', 'st.node_id', 'n.id')
     .where('n.id', nodeId)
-    .first('n.*', 's.lat', 's.lon', 's.time_zone', 's.recharge_elevation_deg', 'o.steady_margin', 'o.thin_margin');
+    .first('n.*', 's.lat', 's.lon', 's.time_zone', 's.recharge_elevation_deg', 'o.steady_margin', 'o.thin_margin', 'st.measured_watts', 'st.modelled_watts');
   if (!row) return null;
   const site: SiteRow = { id: row.site_id, lat: row.lat, lon: row.lon, time_zone: row.time_zone, recharge_elevation_deg: row.recharge_elevation_deg };
-  return { node: row as NodeRow, site, thresholds: { steady: row.steady_margin as number, thin: row.thin_margin as number } };
+  return {
+    node: row as NodeRow,
+    site,
+    thresholds: { steady: row.steady_margin as number, thin: row.thin_margin as number },
+    drawScale: drawScaleFrom({ measuredWatts: row.measured_watts, modelledWatts: row.modelled_watts }),
+  };
 }
 
 /** Recomputes and stores a node's latest status from its latest reading. */
@@ -23,14 +32,13 @@ export async function refreshNodeStatus(nodeId: number, now = new Date(), knex: 
   const loaded = await loadNodeForModel(nodeId, knex);
   if (!loaded) return null;
   const last = await latestReading(nodeId, knex);
-  const stored = await knex('node_status').where({ node_id: nodeId }).first('measured_watts', 'modelled_watts');
   const status = deriveNodeStatus({
     spec: modelSpecFromRows(loaded.node, loaded.site),
     latest: last ? { t: new Date(last.t), volts: calibratedVolts(loaded.node, last.v), panelVolts: last.vp } : null,
     now,
     thresholds: loaded.thresholds,
     // As the ingest does: the last measured night's excess draw, until the next pass measures again.
-    drawScale: drawScaleFrom({ measuredWatts: stored?.measured_watts, modelledWatts: stored?.modelled_watts }),
+    drawScale: loaded.drawScale,
   });
   // Guarded like the ingest's write: a reading stored meanwhile keeps its own, newer status.
   const { sql, bindings } = guardedStatusUpsert({ node_id: nodeId, org_id: loaded.node.org_id, ...status });
