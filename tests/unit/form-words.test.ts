@@ -34,7 +34,7 @@ describe('field errors in plain words', () => {
 
 describe('bank notes beside the node form', () => {
   const bank = { cells_series: 2, cells_parallel: 1, cell_farads: 25, cell_rated_volts: 2.7, cell_esr_ohms: 0.03, cell_leakage_amps: 12e-6 };
-  it('a usual double-layer cell gets none (common practice: 2.3–3.0 V a cell)', () => {
+  it('a usual double-layer cell gets none (common practice, from memory: 2.3–3.0 V a cell)', () => {
     expect(bankNotes(bank)).toEqual([]);
   });
   it('a module voltage typed as a cell rating, a lithium-ion capacitor, and an ESR of 0 Ω are pointed out', () => {
