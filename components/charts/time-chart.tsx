@@ -56,7 +56,8 @@ function includeRange(include: number[]) {
     const values = [...include, ...(min == null || !Number.isFinite(min) ? [] : [min]), ...(max == null || !Number.isFinite(max) ? [] : [max])];
     const low = Math.min(...values);
     const high = Math.max(...values);
-    const pad = (high - low || Math.abs(high) || 1) * 0.06;
+    // 8 %: room above the top line (the rating) for its label
+    const pad = (high - low || Math.abs(high) || 1) * 0.08;
     return [low - pad, high + pad];
   };
 }

@@ -13,6 +13,7 @@ import { formatLocal } from './local-time';
 const DASH_PROJECTION = [7, 5];
 const DASH_FLOOR = [10, 4];
 const DOT_CUTOFF = [1.5, 3.5];
+const DASH_RATED = [3, 3];
 
 export function voltSeries(p: ChartPalette): ChartSeries[] {
   return [
@@ -27,14 +28,18 @@ export interface Floors {
   floorVolts: number;
   cutoffVolts: number;
   farads: number;
+  /** The bank's rating, strings × cell rated volts: a reading above it over-charges the cells. */
+  ratedVolts: number;
 }
 
-export function voltAxes({ floorVolts, cutoffVolts }: Floors): ChartAxis[] {
-  return [{ scale: 'V', label: 'bank (V)', include: [cutoffVolts, floorVolts] }];
+/** The volts axis always spans the cutoff to the rating, so a bank's place in its window reads at a glance. */
+export function voltAxes({ floorVolts, cutoffVolts, ratedVolts }: Floors): ChartAxis[] {
+  return [{ scale: 'V', label: 'bank (V)', include: [cutoffVolts, floorVolts, ...(ratedVolts > 0 ? [ratedVolts] : [])] }];
 }
 
-export function voltRefLines({ floorVolts, cutoffVolts }: Floors, p: ChartPalette): RefLine[] {
+export function voltRefLines({ floorVolts, cutoffVolts, ratedVolts }: Floors, p: ChartPalette): RefLine[] {
   return [
+    ...(ratedVolts > 0 ? [{ value: ratedVolts, scale: 'V', label: `rated ${ratedVolts.toFixed(2)} V`, color: p.inkMuted, dash: DASH_RATED }] : []),
     { value: floorVolts, scale: 'V', label: `burst floor ${floorVolts.toFixed(2)} V`, color: p.hazard, dash: DASH_FLOOR },
     { value: cutoffVolts, scale: 'V', label: `cutoff ${cutoffVolts.toFixed(2)} V`, color: p.inkMuted, dash: DOT_CUTOFF, labelSide: 'below' },
   ];

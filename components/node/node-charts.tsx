@@ -26,13 +26,14 @@ export function NodeCharts({ nodeId, timeZone }: { nodeId: number; timeZone: str
   const floor = reply?.bank.burst_floor_volts ?? 0;
   const cutoff = reply?.bank.cutoff_volts ?? 0;
   const farads = reply?.bank.farads ?? 0;
+  const rated = reply?.bank.max_volts ?? 0;
   const lines = useMemo(() => {
-    const floors = { floorVolts: floor, cutoffVolts: cutoff, farads };
+    const floors = { floorVolts: floor, cutoffVolts: cutoff, farads, ratedVolts: rated };
     return {
       voltAxes: spec.voltAxes(floors), voltLines: spec.voltRefLines(floors, palette),
       energyAxes: spec.energyAxes(), energyLines: spec.energyRefLines(floors, palette), panelAxes: spec.panelAxes(),
     };
-  }, [floor, cutoff, farads, palette]);
+  }, [floor, cutoff, farads, rated, palette]);
   const nightsKey = reply ? reply.nights.map((n) => `${n.start}-${n.end}`).join(',') : '';
   const nights = useMemo(() => (nightsKey ? nightsKey.split(',').map((k) => { const [from, to] = k.split('-').map(Number); return { from, to }; }) : []), [nightsKey]);
   const withProjection = reply ? rangeReachesLatest({ reply }) : false;

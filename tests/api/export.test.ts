@@ -62,6 +62,31 @@ describe('GET /api/v1/nodes/{id}/export (readings CSV)', () => {
   });
 });
 
+describe('a retired node\'s readings', () => {
+  it('still export in full (kept on record) while its other routes answer 404', async () => {
+    const retired = await createTestNode('export-retired');
+    const start = Math.floor(Date.now() / 1000 / 60) * 60 - 3 * 3600;
+    const readings = Array.from({ length: 30 }, (_, i) => ({ t: start + i * 60, v: Number((4.5 - i * 0.001).toFixed(3)), seq: i }));
+    const post = await api().post('/api/v1/readings').set('authorization', `Bearer ${retired.token}`).set('content-type', 'application/json').send(JSON.stringify({ readings }));
+    expect(post.status).toBe(200);
+    expect((await retired.session.agent.delete(`/api/v1/nodes/${retired.nodeId}`).set('origin', retired.session.origin)).status).toBe(204);
+
+    expect((await retired.session.agent.get(`/api/v1/nodes/${retired.nodeId}/series`)).status).toBe(404);
+    expect((await retired.session.agent.get(`/api/v1/nodes/${retired.nodeId}`)).status).toBe(404);
+    const res = await retired.session.agent.get(`/api/v1/nodes/${retired.nodeId}/export?from=${start}&to=${start + 30 * 60}`).buffer(true);
+    expect(res.status).toBe(200);
+    const lines = res.text.split('\r\n').filter(Boolean);
+    expect(lines).toHaveLength(1 + 30);
+    expect(lines.at(-1)!.split(',')[6]).toBe('29');
+    // the file carries the name the node had, not the " (deleted N)" that freed it
+    expect(res.headers['content-disposition']).toContain(retired.body.name);
+    expect(res.headers['content-disposition']).not.toContain('deleted');
+    // and another organization still cannot read it
+    const stranger = await signedIn('owner@cinderflats.example');
+    expect((await stranger.agent.get(`/api/v1/nodes/${retired.nodeId}/export`)).status).toBe(404);
+  });
+});
+
 describe('GET /api/v1/nodes/{id}/nights (the night-by-night table)', () => {
   it('lists the last 14 nights newest first, dusk before dawn, with every field', async () => {
     const viewer = await signedIn('viewer@larkspur.example');

@@ -59,6 +59,13 @@ describe('a node over its rating, then retired, in Chromium', () => {
     // The record stays: its site lists it as retired, with when.
     await page.goto(`/sites/${node.body.site_id}`);
     await expect(page.getByTestId('retired-node').filter({ hasText: node.body.name }).textContent()).resolves.toMatch(/retired .* · last reading /);
+    // …and its readings can still be downloaded from there, all of them.
+    const href = await page.getByTestId('retired-node').filter({ hasText: node.body.name }).getByTestId('retired-node-export').getAttribute('href');
+    const csv = await page.request.get(href!);
+    expect(csv.status()).toBe(200);
+    const lines = (await csv.text()).split('\r\n').filter(Boolean);
+    expect(lines).toHaveLength(2);
+    expect(Number(lines[1].split(',')[1])).toBeCloseTo(volts, 3);
     await page.getByTestId('retired-nodes').scrollIntoViewIfNeeded();
     await screenshot(page, 'site-retired-nodes');
     // Its credential stopped working with it.

@@ -16,14 +16,19 @@ type Db = Knex | Knex.Transaction;
 const toDate = (seconds: number) => new Date(seconds * 1000);
 const toSeconds = (value: Date | string) => new Date(value).getTime() / 1000;
 
-/** A live node of the organization with its site, thresholds and last advised cadence; another organization's node is 404. */
-export async function loadNodeInOrg({ orgId, nodeId, knex = db() }: { orgId: number; nodeId: number; knex?: Db }) {
-  const row = await knex('nodes as n')
+/**
+ * A live node of the organization with its site, thresholds and last advised cadence; another
+ * organization's node is 404. `includeRetired` also finds a retired node (its readings are kept
+ * on record and can still be exported); everything else treats a retired node as gone.
+ */
+export async function loadNodeInOrg({ orgId, nodeId, knex = db(), includeRetired = false }: { orgId: number; nodeId: number; knex?: Db; includeRetired?: boolean }) {
+  const query = knex('nodes as n')
     .join('sites as s', 's.id', 'n.site_id')
     .join('organizations as o', 'o.id', 'n.org_id')
     .leftJoin('node_status as st', 'st.node_id', 'n.id')
-    .where({ 'n.id': nodeId, 'n.org_id': orgId })
-    .whereNull('n.deleted_at')
+    .where({ 'n.id': nodeId, 'n.org_id': orgId });
+  if (!includeRetired) query.whereNull('n.deleted_at');
+  const row = await query
     .first('n.*', 's.name as site_name', 's.lat', 's.lon', 's.time_zone', 's.recharge_elevation_deg', 'o.steady_margin', 'o.thin_margin', 'st.next_report_s as advised_s');
   if (!row) throw problems.notFound('The node');
   const site: SiteRow = { id: row.site_id, lat: row.lat, lon: row.lon, time_zone: row.time_zone, recharge_elevation_deg: row.recharge_elevation_deg };

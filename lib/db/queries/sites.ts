@@ -34,15 +34,22 @@ export async function listRetiredNodes(orgId: number, siteId: number) {
     .where({ 'n.org_id': orgId, 'n.site_id': siteId })
     .whereNotNull('n.deleted_at')
     .orderBy('n.deleted_at', 'desc')
-    .select('n.id', 'n.name', 'n.purpose', 'n.deleted_at', db().raw('(SELECT MAX(r.t) FROM readings r WHERE r.node_id = n.id) AS last_reading_at'));
+    .select('n.id', 'n.name', 'n.purpose', 'n.deleted_at',
+      db().raw('(SELECT MIN(r.t) FROM readings r WHERE r.node_id = n.id) AS first_reading_at'),
+      db().raw('(SELECT MAX(r.t) FROM readings r WHERE r.node_id = n.id) AS last_reading_at'));
   return rows.map((r) => ({
     id: r.id as number,
-    // deleteNode frees the name by appending " (deleted <id>)"; the record shows the name it had.
-    name: String(r.name).replace(/ \(deleted \d+\)$/, ''),
+    name: retiredName(String(r.name)),
     purpose: (r.purpose as string | null) ?? '',
     retired_at: new Date(r.deleted_at).toISOString(),
+    first_reading_at: r.first_reading_at ? new Date(r.first_reading_at).toISOString() : null,
     last_reading_at: r.last_reading_at ? new Date(r.last_reading_at).toISOString() : null,
   }));
+}
+
+/** deleteNode frees a retired node's name by appending " (deleted <id>)"; the record shows the name it had. */
+export function retiredName(name: string): string {
+  return name.replace(/ \(deleted \d+\)$/, '');
 }
 
 async function assertNameFree(trx: Knex.Transaction, orgId: number, name: string, exceptId?: number) {

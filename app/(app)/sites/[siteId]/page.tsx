@@ -9,6 +9,13 @@ import { loadSitePage } from './load-site';
 
 export const metadata: Metadata = { title: 'Site' };
 
+/** Every reading the node sent: from its first to one second past its last (the range is [from, to)). */
+function exportHref(nodeId: number, firstIso: string, lastIso: string): string {
+  const from = Math.floor(Date.parse(firstIso) / 1000);
+  const to = Math.floor(Date.parse(lastIso) / 1000) + 1;
+  return `/api/v1/nodes/${nodeId}/export?from=${from}&to=${to}`;
+}
+
 export default async function SitePage({ params }: { params: Promise<{ siteId: string }> }) {
   const { member, site } = await loadSitePage((await params).siteId);
   const { id: _id, live_nodes: nodes, ...body } = site;
@@ -47,6 +54,11 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
                   retired <span className="figures">{local(n.retired_at)}</span>
                   {n.last_reading_at ? <> · last reading <span className="figures">{local(n.last_reading_at)}</span></> : ' · never reported'}
                 </span>
+                {n.first_reading_at && n.last_reading_at ? (
+                  <a href={exportHref(n.id, n.first_reading_at, n.last_reading_at)} download className="text-tide underline-offset-2 hover:underline" data-testid="retired-node-export">
+                    Download all its readings (CSV)
+                  </a>
+                ) : null}
               </li>
             ))}
           </ul>
