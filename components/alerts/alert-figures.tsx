@@ -67,7 +67,7 @@ function KindItem({ alert }: { alert: AlertWire }) {
       </Term>
     );
   }
-  if (alert.kind === 'node_dark' || alert.kind === 'node_silent') {
+  if (alert.kind === 'node_dark' || alert.kind === 'dark_through_day' || alert.kind === 'node_silent') {
     return <Term term="Last reading"><SiteTime at={d.last_reading_at} timeZone={alert.time_zone} empty="never" /></Term>;
   }
   return (

@@ -4,7 +4,7 @@ import type { PassNode } from '../db/queries/alerts';
 import { latestReadingAt, lockUnresolvedAlert, insertAlert, readingsBetween, updateAlert, upsertNodeStatus } from '../db/queries/alerts';
 import { deriveNodeStatus } from '../status/derive-status';
 import { calibratedVolts, modelSpecFromRows } from '../status/node-spec';
-import { assessLatestDay } from './day-charge';
+import { assessLatestDay, missedDay } from './day-charge';
 import { stepAlert } from './hysteresis';
 import { ALERT_KINDS, type AlertKind } from './kinds';
 import { measureLatestNight } from './night-draw';
@@ -44,7 +44,10 @@ export async function evaluatePassNode({ knex, passNode, now }: { knex: Knex; pa
     drawScale: drawScaleFrom({ measuredWatts: night?.measuredWatts, modelledWatts: night?.modelledWatts }),
   });
   const day = assessLatestDay({ spec, samples, now });
-  const ruleInput = { status, thresholds: { steady: org.steady, thin: org.thin }, alertOnThin: org.alertOnThin, maxVolts: modelBank({ bank: spec.bank }).maxVolts, night, day };
+  const missed = missedDay({ site: spec.site, lastReadingAt: latest ? new Date(latest.t) : null, now });
+  const ruleInput = {
+    status, thresholds: { steady: org.steady, thin: org.thin }, alertOnThin: org.alertOnThin, maxVolts: modelBank({ bank: spec.bank }).maxVolts, night, day, missedDay: missed,
+  };
   const measuredWatts = night?.measuredWatts ?? null;
   const modelledWatts = night?.modelledWatts ?? null;
   return { status, measuredWatts, modelledWatts, verdicts: evaluateAlertRules(ruleInput), detail: alertDetail({ ...ruleInput, measuredWatts }) };

@@ -1,4 +1,4 @@
-import { energyJoules, isSunBelow, modelBank, nightWindows, type VoltageSample } from '../energy';
+import { energyJoules, isSunBelow, modelBank, nextRechargeAt, nextSunsetAt, nightWindows, type VoltageSample } from '../energy';
 import type { NodeModelSpec } from '../status/node-spec';
 
 /**
@@ -73,4 +73,27 @@ function judgeDay({ spec, day, allSamples }: { spec: NodeModelSpec; day: Voltage
 
 function ms(t: Date | number): number {
   return t instanceof Date ? t.getTime() : t;
+}
+
+/**
+ * The first whole day after the last reading — from the first recharge after it (the sun up
+ * through the site's recharge elevation) to the sunset that follows — once that day has ended
+ * by `now`; else null. A node gone dark in the night is expected back during that day, when the
+ * panel lifts the bank to the converter's start voltage; a day that went by without a report
+ * means it is not refilling. A reading in daylight starts the count at the next morning. Null
+ * too where the sun does not rise within the search limit (polar night).
+ */
+export interface MissedDay {
+  startAt: Date;
+  endAt: Date;
+}
+
+export function missedDay({ site, lastReadingAt, now }: { site: NodeModelSpec['site']; lastReadingAt: Date | null; now: Date }): MissedDay | null {
+  if (!lastReadingAt) return null;
+  const dusk = isSunBelow({ site, at: lastReadingAt }) ? lastReadingAt : nextSunsetAt({ site, at: lastReadingAt });
+  if (!dusk || dusk >= now) return null;
+  const startAt = nextRechargeAt({ site, at: dusk });
+  if (!startAt || startAt >= now) return null;
+  const endAt = nextSunsetAt({ site, at: startAt });
+  return endAt && endAt <= now ? { startAt, endAt } : null;
 }

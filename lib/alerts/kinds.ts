@@ -1,8 +1,8 @@
 /**
  * Alert kinds and statuses (our own names). The list matches the `alerts.kind` enum of the
- * migration 20261201000004_alerts; a unit test keeps the two equal.
+ * latest migration that sets it (20261203000007_alert_dark_through_day); a unit test keeps the two equal.
  */
-export const ALERT_KINDS = ['reserve_short', 'reserve_thin', 'node_dark', 'node_silent', 'draw_anomaly', 'not_charging', 'over_voltage'] as const;
+export const ALERT_KINDS = ['reserve_short', 'reserve_thin', 'node_dark', 'node_silent', 'draw_anomaly', 'not_charging', 'over_voltage', 'dark_through_day'] as const;
 export type AlertKind = (typeof ALERT_KINDS)[number];
 
 export const ALERT_STATUSES = ['open', 'acknowledged', 'resolved'] as const;
@@ -50,6 +50,14 @@ export const KIND_INFO: Record<AlertKind, { title: string; todo: string[] }> = {
     todo: [
       'Presumed browned out: it returns by itself once the bank climbs back to the converter start voltage.',
       'If it does not come back after a sunny day, visit it: check the panel, its wiring and the cells.',
+    ],
+  },
+  dark_through_day: {
+    title: 'still dark after a whole day of sun',
+    todo: [
+      'Visit it: a bank that a day of sun did not bring back to the converter start voltage is not refilling.',
+      'Check the panel and its connector, the charger, and the cells (a shorted or open cell); a fully overcast day can also keep it down, so look at the weather first.',
+      'Treat the bank as charged until measured: it can deliver a large current into a short. Follow the cell maker\u2019s guidance and local electrical codes.',
     ],
   },
   node_silent: {

@@ -10,6 +10,7 @@ export const KIND_LABELS: Record<AlertKind, { label: string; line: string; state
   reserve_short: { label: 'Reserve short', line: 'Projected to brown out before the sun recharges it.', state: 'short' },
   reserve_thin: { label: 'Reserve thin', line: 'Reaches recharge, with little to spare.', state: 'thin' },
   node_dark: { label: 'Gone dark', line: 'Went quiet at or near the burst floor: presumed browned out.', state: 'dark' },
+  dark_through_day: { label: 'Dark through a day', line: 'Still dark after a whole day of sun: the bank is not refilling, so someone must go.', state: 'dark' },
   node_silent: { label: 'Gone silent', line: 'Went quiet while its bank was healthy: link or firmware.', state: 'silent' },
   draw_anomaly: { label: 'Drawing too much', line: 'Last night it used far more energy than its settings predict.', state: null },
   not_charging: { label: 'Not charging', line: 'A clear day went by without the bank gaining energy.', state: null },

@@ -24,8 +24,9 @@ export interface SubscriptionRow {
 export type Delivery = SubscriptionRow['delivery'];
 
 // Owners hear without subscribing of what needs someone to act: a short reserve, a node gone
-// dark or silent (a visit, or the link), and over-voltage (a hazard: cells vent).
-export const DEFAULT_OWNER_KINDS: AlertKind[] = ['reserve_short', 'node_dark', 'node_silent', 'over_voltage'];
+// dark or silent (a visit, or the link), still dark after a day of sun (a visit), and
+// over-voltage (a hazard: cells vent).
+export const DEFAULT_OWNER_KINDS: AlertKind[] = ['reserve_short', 'node_dark', 'dark_through_day', 'node_silent', 'over_voltage'];
 
 export function deliveryFor({
   member,

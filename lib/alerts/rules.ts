@@ -1,6 +1,6 @@
 import type { DerivedStatus } from '../status/derive-status';
 import type { StateThresholds } from '../energy';
-import type { DayCharge } from './day-charge';
+import type { DayCharge, MissedDay } from './day-charge';
 import {
   ALERT_KINDS, DRAW_ANOMALY_RATIO, DRAW_CLEAR_RATIO, MARGIN_CLEAR_BAND, OVER_VOLTAGE_CLEAR_FRACTION, OVER_VOLTAGE_FRACTION, type AlertKind,
 } from './kinds';
@@ -24,6 +24,8 @@ export interface RuleInput {
   maxVolts: number;
   night: NightDraw | null;
   day: DayCharge | null;
+  /** The first whole day of sun since the last reading, when it has ended (see missedDay). */
+  missedDay: MissedDay | null;
 }
 
 const REPORTING = new Set(['steady', 'thin', 'short']);
@@ -44,6 +46,8 @@ export function evaluateAlertRules(input: RuleInput): Verdicts {
       ? { active: state === 'thin', clear: state === 'dark' || (state === 'steady' && marginAtLeast(thresholds.steady + MARGIN_CLEAR_BAND)) }
       : { active: false, clear: true },
     node_dark: { active: state === 'dark', clear: reporting },
+    // The escalation of a dark node: a whole day of sun went by and it did not come back.
+    dark_through_day: { active: state === 'dark' && input.missedDay !== null, clear: reporting },
     node_silent: { active: state === 'silent', clear: reporting },
     draw_anomaly: input.night && Number.isFinite(input.night.ratio)
       ? { active: input.night.ratio > DRAW_ANOMALY_RATIO, clear: input.night.ratio <= DRAW_CLEAR_RATIO }
@@ -75,6 +79,8 @@ export function alertDetail(input: RuleInput & { measuredWatts: number | null })
     night_start_at: night?.startAt.toISOString() ?? null,
     day_gain_joules: day?.gainJoules ?? null,
     day_clear_sky: day?.clearSky ?? null,
+    missed_day_start_at: input.missedDay?.startAt.toISOString() ?? null,
+    missed_day_end_at: input.missedDay?.endAt.toISOString() ?? null,
     brownout_at: status.brownout_at?.toISOString() ?? null,
     recharge_at: status.recharge_at?.toISOString() ?? null,
     last_reading_at: status.last_reading_at?.toISOString() ?? null,

@@ -125,6 +125,33 @@ describe('a node reading above its rated maximum', () => {
   });
 });
 
+describe('a node gone dark that a day of sun does not bring back', () => {
+  it('has the dark alert in the night, and the escalation once the next day has set without a report, both e-mailed to the owner', async () => {
+    const org = await createTestOrg(db());
+    // Its last report, at 20:00 PST, already short: it browns out in the night.
+    await insertReading(db(), org.nodeId, at(-1), voltsForMargin({ at: at(-1), margin: 0.3 }));
+    const night = await runMarginPass({ knex: db(), now: at(10 * 60), appUrl: APP_URL, orgIds: [org.orgId] });
+    expect(night.nodes[0].state).toBe('dark');
+    expect(night.nodes[0].opened).toEqual(['node_dark']);
+    // 20:00 PST the next evening: sunrise and sunset of 20 Nov have passed with no report.
+    const evening = await runMarginPass({ knex: db(), now: at(24 * 60), appUrl: APP_URL, orgIds: [org.orgId] });
+    expect(evening.nodes[0].opened).toEqual(['dark_through_day']);
+    const alert = (await alertsOf(org.nodeId)).find((a) => a.kind === 'dark_through_day');
+    const detail = typeof alert.detail === 'string' ? JSON.parse(alert.detail) : alert.detail;
+    // the missed day runs from the morning of 20 Nov to its evening, site time
+    expect(new Date(detail.missed_day_start_at).getTime()).toBeGreaterThan(at(10 * 60).getTime());
+    expect(new Date(detail.missed_day_end_at).getTime()).toBeLessThan(at(24 * 60).getTime());
+    const outbox = await outboxOf(org.orgId);
+    expect(outbox.map((m) => m.to_address)).toEqual([org.people.owner.email, org.people.owner.email]);
+    expect(outbox[1].subject).toContain('still dark after a whole day of sun');
+    // a report again clears both (two passes of hysteresis)
+    await insertReading(db(), org.nodeId, at(24 * 60 + 1), 4.5);
+    for (const m of [24 * 60 + 2, 24 * 60 + 3]) await runMarginPass({ knex: db(), now: at(m), appUrl: APP_URL, orgIds: [org.orgId] });
+    const after = await alertsOf(org.nodeId);
+    expect(after.filter((a) => a.kind === 'node_dark' || a.kind === 'dark_through_day').map((a) => a.status)).toEqual(['resolved', 'resolved']);
+  });
+});
+
 describe('a node retired with an open alert', () => {
   it('resolves its alerts and drops its waiting mail; later passes leave it alone', async () => {
     const org = await createTestOrg(db());

@@ -39,7 +39,9 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
   // The draw explains a reserve, not a bank above its rating.
   const cause = input.kind === 'over_voltage'
     ? 'a charger that does not regulate (or regulates too high), bank settings that do not match the bank (cells in series, cell rating), or a calibration that reads high.'
-    : likelyCause(detail);
+    : input.kind === 'dark_through_day'
+      ? `no report through the day of ${dayWords(detail, timeZone)}: the bank is not refilling. A panel that is dirty, shaded, unplugged or broken, a charger fault, or a failed cell; a fully overcast day can also keep it down.`
+      : likelyCause(detail);
   const link = nodeLink(input.appUrl, input.nodeId);
   const intro = `${oneLine(input.nodeName)} — ${info.title}.`;
   const text = [
@@ -77,6 +79,8 @@ function subjectTail(input: AlertMailInput, brownout: string | null): string {
       return `thin (margin ${formatMargin(d.margin)})`;
     case 'node_dark':
       return 'dark: presumed browned out';
+    case 'dark_through_day':
+      return 'still dark after a whole day of sun: visit it';
     case 'node_silent':
       return 'silent while healthy';
     case 'draw_anomaly':
@@ -100,4 +104,11 @@ export function likelyCause(detail: AlertDetail): string {
     return `${figures}: far more than the load profile explains, so look for firmware stuck awake, a leak or lost capacitance.`;
   }
   return `${figures}: the draw matches the model, so the bank is too small for this night at this cadence, or the panel did not refill it.`;
+}
+
+/** "Thu 3 Dec 07:58 – 15:46": the day a dark node missed, in the site's zone. */
+function dayWords(detail: AlertDetail, timeZone: string): string {
+  const from = localTime(detail.missed_day_start_at, timeZone);
+  const to = localTime(detail.missed_day_end_at, timeZone);
+  return from && to ? `${from} to ${to}` : 'the last whole day';
 }

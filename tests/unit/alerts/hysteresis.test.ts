@@ -33,7 +33,7 @@ describe('stepping one alert per pass', () => {
         let opens = 0;
         for (const margin of margins) {
           const state = stateFromMargin({ margin, thresholds: { steady: 1.5, thin: 1.0 } });
-          const verdict = evaluateAlertRules({ status: statusWith({ state, margin }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null }).reserve_short;
+          const verdict = evaluateAlertRules({ status: statusWith({ state, margin }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, missedDay: null }).reserve_short;
           const step = stepAlert({ existing, verdict, now, resendShortHours: 6 });
           if (step.action === 'open') { opens++; existing = open(); }
           if (step.action === 'resolve') return false;

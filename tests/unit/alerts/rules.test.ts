@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { ALERT_KINDS as MIGRATION_KINDS } from '@/db/migrations/20261201000004_alerts';
+import { ALERT_KINDS as MIGRATION_KINDS } from '@/db/migrations/20261203000007_alert_dark_through_day';
 import { ALERT_KINDS } from '@/lib/alerts/kinds';
 import { evaluateAlertRules, type RuleInput } from '@/lib/alerts/rules';
 import { MAX_VOLTS, statusWith } from './fixtures';
 
 const base = (over: Partial<RuleInput> = {}): RuleInput => ({
-  status: statusWith({}), thresholds: { steady: 1.5, thin: 1.0 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, ...over,
+  status: statusWith({}), thresholds: { steady: 1.5, thin: 1.0 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, missedDay: null, ...over,
 });
 
 describe('alert kinds', () => {
@@ -50,6 +50,16 @@ describe('alert rules (the thresholds of DESIGN.md §4 and issue 6)', () => {
     expect(dark.node_silent).toEqual({ active: false, clear: false });
     const back = evaluateAlertRules(base({ status: statusWith({ state: 'steady' }) }));
     expect(back.node_dark.clear && back.node_silent.clear).toBe(true);
+  });
+
+  it('a dark node that missed a whole day of sun escalates; it clears with the dark alert once it reports', () => {
+    const missed = { startAt: new Date('2026-06-21T02:32:00Z'), endAt: new Date('2026-06-21T17:40:00Z') };
+    expect(evaluateAlertRules(base({ status: statusWith({ state: 'dark' }), missedDay: missed })).dark_through_day).toEqual({ active: true, clear: false });
+    // dark, but the day is not over: only the dark alert
+    expect(evaluateAlertRules(base({ status: statusWith({ state: 'dark' }), missedDay: null })).dark_through_day).toEqual({ active: false, clear: false });
+    // silent (healthy bank) through a day is a link problem, not this one
+    expect(evaluateAlertRules(base({ status: statusWith({ state: 'silent' }), missedDay: missed })).dark_through_day.active).toBe(false);
+    expect(evaluateAlertRules(base({ status: statusWith({ state: 'steady' }), missedDay: null })).dark_through_day).toEqual({ active: false, clear: true });
   });
 
   it('draw anomaly above 1.3× the modelled draw (issue 6), clear at or below 1.2×', () => {

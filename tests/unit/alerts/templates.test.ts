@@ -5,7 +5,7 @@ import { alertDetail } from '@/lib/alerts/rules';
 import { MAX_VOLTS, statusWith } from './fixtures';
 
 const status = statusWith({ state: 'short', margin: 0.62, volts: 2.1, brownout_at: new Date('2026-11-20T11:41:00Z'), recharge_at: new Date('2026-11-20T15:38:00Z') });
-const detail = alertDetail({ status, thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, measuredWatts: null });
+const detail = alertDetail({ status, thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, missedDay: null, measuredWatts: null });
 
 describe('the alert e-mail', () => {
   it('names brownout and recharge in the site zone (America/Los_Angeles is UTC−8 in November: common practice)', () => {
@@ -34,7 +34,7 @@ describe('the alert e-mail', () => {
   });
 
   it('gives the over-voltage figure itself, in the line, the subject and the body, and the margin with its ×', () => {
-    const over = alertDetail({ status: statusWith({ volts: 9.5 }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: 5.4, night: null, day: null, measuredWatts: null });
+    const over = alertDetail({ status: statusWith({ volts: 9.5 }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: 5.4, night: null, day: null, missedDay: null, measuredWatts: null });
     // 9.5 / 5.4 = 1.759 → 176 % (derived here)
     expect(alertLine('over_voltage', over)).toContain('9.50 V, 176 % of its rated 5.40 V');
     const mail = buildAlertMail({ kind: 'over_voltage', detail: over, nodeId: 7, nodeName: 'N-7', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x' });
@@ -44,3 +44,18 @@ describe('the alert e-mail', () => {
     expect(buildAlertMail({ kind: 'reserve_short', detail, nodeId: 1, nodeName: 'N', siteName: 'S', timeZone: 'UTC', appUrl: 'http://x' }).text).toMatch(/Night margin:\s+0\.62×/);
   });
 });
+
+describe('the still-dark-after-a-day e-mail', () => {
+  it('names the day it missed in the site zone, says to visit, and gives the caution about a charged bank', () => {
+    const missedDay = { startAt: new Date('2026-11-20T15:38:00Z'), endAt: new Date('2026-11-21T00:47:00Z') };
+    const dark = alertDetail({ status: statusWith({ state: 'dark', volts: 1.9 }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, missedDay, measuredWatts: null });
+    const mail = buildAlertMail({ kind: 'dark_through_day', detail: dark, nodeId: 9, nodeName: 'N-9', siteName: 'Ridge', timeZone: 'America/Los_Angeles', appUrl: 'http://x' });
+    expect(mail.subject).toContain('still dark after a whole day of sun');
+    // America/Los_Angeles is UTC−8 in November (common practice): 15:38Z is 07:38, 00:47Z the next day is 16:47 the day before
+    expect(mail.text).toMatch(/day of .*07:38.* to .*16:47/);
+    expect(mail.text).toMatch(/Visit it/);
+    expect(mail.text).toMatch(/local electrical codes/);
+    expect(mail.html).toContain('Visit it');
+  });
+});
+
