@@ -7,7 +7,8 @@ import { ALERT_KINDS as FIRST_KINDS } from './20261201000004_alerts';
  * the sign that the bank is not refilling (panel, wiring, charger or cells) and someone must go.
  * Every subscription that asked for `node_dark` gets its escalation too.
  */
-export const ALERT_KINDS = [...FIRST_KINDS, 'dark_through_day'] as const;
+// Beside node_dark, whose escalation it is: the screens list kinds in this order.
+export const ALERT_KINDS = ['reserve_short', 'reserve_thin', 'node_dark', 'dark_through_day', 'node_silent', 'draw_anomaly', 'not_charging', 'over_voltage'] as const;
 
 const enumOf = (kinds: readonly string[]) => `ENUM(${kinds.map((k) => `'${k}'`).join(', ')}) NOT NULL`;
 

@@ -2,7 +2,7 @@
  * Alert kinds and statuses (our own names). The list matches the `alerts.kind` enum of the
  * latest migration that sets it (20261203000007_alert_dark_through_day); a unit test keeps the two equal.
  */
-export const ALERT_KINDS = ['reserve_short', 'reserve_thin', 'node_dark', 'node_silent', 'draw_anomaly', 'not_charging', 'over_voltage', 'dark_through_day'] as const;
+export const ALERT_KINDS = ['reserve_short', 'reserve_thin', 'node_dark', 'dark_through_day', 'node_silent', 'draw_anomaly', 'not_charging', 'over_voltage'] as const;
 export type AlertKind = (typeof ALERT_KINDS)[number];
 
 export const ALERT_STATUSES = ['open', 'acknowledged', 'resolved'] as const;

@@ -83,7 +83,7 @@ describe('/api/v1/subscriptions', () => {
     const org = await createTestOrg(db());
     const deployer = await signedIn(org.people.deployer.email, PASSWORD);
     const owner = await signedIn(org.people.owner.email, PASSWORD);
-    expect((await owner.agent.get('/api/v1/subscriptions')).body).toEqual({ subscriptions: [], defaults: [{ site_id: null, kinds: ['reserve_short', 'node_dark', 'node_silent', 'over_voltage'], delivery: 'immediate' }] });
+    expect((await owner.agent.get('/api/v1/subscriptions')).body).toEqual({ subscriptions: [], defaults: [{ site_id: null, kinds: ['reserve_short', 'node_dark', 'dark_through_day', 'node_silent', 'over_voltage'], delivery: 'immediate' }] });
     expect((await deployer.agent.get('/api/v1/subscriptions')).body).toEqual({ subscriptions: [], defaults: [] });
 
     const put = (s: typeof owner, body: object) => s.agent.put('/api/v1/subscriptions').set('origin', s.origin).send(body);

@@ -161,12 +161,12 @@ describe('the alert e-mail page', () => {
     await signInThroughForm(owner.page, 'owner@larkspur.example');
     await owner.page.goto('/account/subscriptions');
     await owner.page.getByTestId('subscriptions-default').waitFor();
-    // The owner default (issue 6, with what needs someone to act): short, dark, silent and
-    // over-voltage alerts, immediately, from every site.
+    // The owner default (issue 6, with what needs someone to act): short, dark, dark through a
+    // day, silent and over-voltage alerts, immediately, from every site.
     const all = owner.page.getByTestId('subscription-all');
     expect(await all.locator('input[data-kind="reserve_short"]').isChecked()).toBe(true);
-    for (const kind of ['over_voltage', 'node_dark', 'node_silent']) expect(await all.locator(`input[data-kind="${kind}"]`).isChecked(), kind).toBe(true);
-    expect(await all.locator('input[type="checkbox"]:checked').count()).toBe(4);
+    for (const kind of ['over_voltage', 'node_dark', 'dark_through_day', 'node_silent']) expect(await all.locator(`input[data-kind="${kind}"]`).isChecked(), kind).toBe(true);
+    expect(await all.locator('input[type="checkbox"]:checked').count()).toBe(5);
     expect(await all.getByLabel(/Right away/).isChecked()).toBe(true);
     await screenshot(owner.page, 'subscriptions-owner-desktop');
     expect(owner.consoleErrors).toEqual([]);
