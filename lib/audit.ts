@@ -9,6 +9,7 @@ export type AuditAction =
   | 'member_removed'
   | 'invitation_created'
   | 'invitation_accepted'
+  | 'invitation_cancelled'
   | 'password_reset_requested'
   | 'password_changed'
   | 'credential_created'

@@ -45,7 +45,7 @@ export function BenchBatches({ batches }: { batches: BenchBatchWire[] }) {
                     </td>
                     <td className="py-2 pr-3"><CellFlags run={c} /></td>
                     <td className="py-2 text-xs text-ink-muted">
-                      <span className="figures" suppressHydrationWarning>{formatInTimeZone(new Date(c.created_at), 'UTC', 'd MMM yyyy HH:mm')} UTC</span>
+                      <span className="figures" suppressHydrationWarning>{formatInTimeZone(new Date(c.created_at), 'UTC', 'd MMM yyyy HH:mm')}</span>
                       {c.uploaded_by ? <span className="block">{c.uploaded_by}</span> : null}
                     </td>
                   </tr>

@@ -3,10 +3,13 @@
 import { useRef, useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
-import type { Problem } from '@/lib/client/api';
+import { inFieldUnits, type Problem } from '@/lib/client/api';
 import type { BenchRunWire } from '@/lib/schemas/bench-runs';
 
 // Shown in bench units, sent in SI (lib/schemas/bench-runs.ts); pointers name the wire fields.
+/** "Discharge current (mA)" → "mA". */
+const unitOf = (label: string) => /\(([^)]+)\)$/.exec(label)?.[1] ?? '';
+
 const NUMBERS = [
   { name: 'rated_volts', label: 'Rated voltage (V)', scale: 1, initial: '2.7' },
   { name: 'current_amps', label: 'Discharge current (mA)', scale: 1e-3, initial: '10.8' },
@@ -49,7 +52,12 @@ export function BenchUploadForm({ onStored }: { onStored: (run: BenchRunWire) =>
     setBusy(false);
     if (!res.ok) {
       const byField: Record<string, string[]> = {};
-      for (const e of res.problem.errors ?? []) (byField[e.pointer.replace(/^\//, '')] ??= []).push(e.detail);
+      for (const e of res.problem.errors ?? []) {
+        const name = e.pointer.replace(/^\//, '');
+        const field = NUMBERS.find((f) => f.name === name);
+        // the field's own unit (mA, mΩ) in a limit the server gave in A or Ω
+        (byField[name] ??= []).push(field ? inFieldUnits(e.detail, { scale: field.scale, unit: unitOf(field.label) }) : e.detail);
+      }
       setErrors(byField);
       setMessage(res.problem.errors?.length ? 'The log was not stored: see the fields marked above.' : (res.problem.detail ?? res.problem.title));
       return;

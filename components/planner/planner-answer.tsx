@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import { formatDuration } from '@/components/fleet/duration';
 import { formatInTimeZone } from '@/lib/format/time';
 import { SEARCH_LIMIT_SECONDS } from '@/lib/energy/sun';
-import { formatJoules, formatMargin, formatVolts, formatWattHours } from '@/lib/format/units';
+import { BankCaution } from '@/components/settings/bank-caution';
+import { formatAmps, formatJoules, formatMargin, formatVolts, formatWattHours } from '@/lib/format/units';
 import { DischargeChart } from './discharge-chart';
 import type { PlannerReply } from './planner-types';
 
@@ -27,9 +28,20 @@ export function PlannerAnswer({ answer, busy, timeZone, cutoffVolts }: { answer:
         <p className="mt-1 text-sm text-ink-muted">
           {found
             ? `${b.cells_series} in series × ${b.cells_parallel} in parallel = ${b.cells_series * b.cells_parallel} cells: ${answer.bank_farads.toPrecision(4)} F, ${formatVolts(answer.bank_max_volts, 2)} at full, ESR ${(answer.bank_esr_ohms * 1000).toPrecision(3)} mΩ.`
-            : `No count up to ${b.cells_parallel} reaches the target margin; the figures below are for ${b.cells_parallel} in parallel. Stretch the report interval, lower the load or pick a larger cell.`}
+            : answer.burst_blocked
+              ? 'No number of cells can carry this load: see why below.'
+              : `No count up to ${b.cells_parallel} reaches the target margin; the figures below are for ${b.cells_parallel} in parallel. Stretch the report interval, lower the load or pick a larger cell.`}
         </p>
       </div>
+      {answer.burst_blocked ? (
+        <p role="alert" className="rounded-lg border border-hazard/70 bg-dusk-950 px-3 py-2 text-sm" data-testid="planner-burst-blocked">
+          <strong className="text-hazard">The transmit burst cannot complete from any bank of these cells.</strong> Even from a full bank
+          ({formatVolts(answer.burst_blocked.full_volts, 2)}) with no ESR, the converter would draw{' '}
+          <span className="figures">{formatAmps(answer.burst_blocked.input_amps)}</span> at its input, over its{' '}
+          <span className="figures">{formatAmps(answer.burst_blocked.limit_amps)}</span> limit; more cells in parallel do not lower that current.
+          Lower the burst current, use a converter with a higher input limit, or raise the bank voltage (more cells in series).
+        </p>
+      ) : null}
       {polar ? (
         <p role="note" className="rounded-lg border border-hazard/70 bg-dusk-950 px-3 py-2 text-sm" data-testid="planner-polar-night">
           <strong className="text-hazard">Polar night.</strong> Here the sun stays below the recharge elevation for more than 7 days, and this plan
@@ -49,7 +61,8 @@ export function PlannerAnswer({ answer, busy, timeZone, cutoffVolts }: { answer:
         <Figure term="Charge from the panel">{formatDuration(answer.panel_charge_seconds)}<Sub>cutoff → full, sun hours</Sub></Figure>
         <Figure term="Charge at constant current">{formatDuration(answer.cc_charge_seconds)}<Sub>t = C·ΔV/I</Sub></Figure>
       </dl>
-      <DischargeChart answer={answer} cutoffVolts={cutoffVolts} timeZone={timeZone} />
+      {answer.burst_blocked ? null : <DischargeChart answer={answer} cutoffVolts={cutoffVolts} timeZone={timeZone} />}
+      <BankCaution shortCircuitAmps={answer.short_circuit_amps ?? (answer.bank_esr_ohms > 0 ? null : Number.POSITIVE_INFINITY)} />
     </section>
   );
 }

@@ -74,7 +74,7 @@ export function PlannerForm({ sites }: { sites: PlannerSite[] }) {
           <div className="grid gap-3 sm:grid-cols-2">
             <div className="flex flex-col gap-1.5 sm:col-span-2">
               <label htmlFor="planner-site" className="text-sm font-bold">One of your sites</label>
-              <select id="planner-site" value={siteId ?? ''} onChange={(e) => pickSite(e.target.value)} className="rounded-md border border-dusk-600 bg-dusk-950 px-3 py-2" data-testid="planner-site">
+              <select id="planner-site" value={siteId ?? ''} onChange={(e) => pickSite(e.target.value)} className="w-full min-w-0 max-w-full truncate rounded-md border border-dusk-600 bg-dusk-950 px-3 py-2" data-testid="planner-site">
                 <option value="">Other place (enter latitude and longitude)</option>
                 {sites.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
               </select>

@@ -15,6 +15,10 @@ export interface PlannerReply {
   panel_charge_seconds: number;
   cc_charge_seconds: number;
   discharge_curve: [number, number][];
+  /** Set when no cell count can finish one burst: the converter's input current from a full ideal bank exceeds its limit. */
+  burst_blocked: { input_amps: number; limit_amps: number; full_volts: number } | null;
+  /** The planned bank's current into a dead short at full charge, V_full ÷ ESR. */
+  short_circuit_amps: number | null;
 }
 
 export interface PlannerSite {

@@ -27,13 +27,15 @@ export async function apiFetch<T = unknown>(path: string, init: { method?: strin
 }
 
 /**
- * A server message about a field the form shows in other units (a % field sent as a fraction):
- * "Must be at most 1." becomes "Must be at most 100 %."; any other message is kept.
+ * A server message about a field the form shows in its own unit (µA, mA, mΩ, a % field sent
+ * as a fraction): "Must be at most 1." becomes "Must be at most 100 %.", "Must be at most 10 A."
+ * on a mA field "Must be at most 10000 mA.", and a limit without a unit gets the field's. Any
+ * other message is kept.
  */
 export function inFieldUnits(message: string, { scale, unit }: { scale: number; unit: string }): string {
-  if (scale === 1) return message;
-  if (/^Enter a number \(.*\)\.$/.test(message)) return `Enter a number (${unit}).`;
-  return message.replace(/^(Must be (?:at most|at least|above|below)) (-?\d+(?:\.\d+)?)\.$/, (_, words: string, n: string) => `${words} ${Number((Number(n) / scale).toPrecision(12))} ${unit}.`);
+  const withUnit = (n: number) => `${Number(n.toPrecision(12))}${unit ? (unit.startsWith('°') ? unit : ` ${unit}`) : ''}`;
+  if (/^Enter a number \(.*\)\.$/.test(message)) return unit ? `Enter a number (${unit}).` : message;
+  return message.replace(/^(Must be (?:at most|at least|above|below)) (-?\d+(?:\.\d+)?)(?: [^\s\d][^\s]*)?\.$/, (_, words: string, n: string) => `${words} ${withUnit(Number(n) / scale)}.`);
 }
 
 /** Errors by field name (the last pointer segment joined with dots), plus a general message. */

@@ -40,5 +40,5 @@ export {
   type CellMeasurement,
   type CellFlags,
 } from './characterize';
-export { planBank, bankSpec, type PlanInput, type BankPlan, type CellSpec } from './sizing';
+export { planBank, bankSpec, burstLimit, type PlanInput, type BankPlan, type BurstBlocked, type CellSpec } from './sizing';
 export { checkNodeSpecs, type FieldProblem } from './validate';

@@ -20,11 +20,15 @@
 //                          ignoring the node's own draw while charging
 //   ccChargeSeconds        cutoff → full at constant current: C·(V_max − V_cut)/I
 //   dischargeCurve         {t seconds from sunset, volts} over the window, starting full;
-//                          it ends early where the bank reaches the burst floor
+//                          it ends early where the bank reaches the burst floor; empty when
+//                          burstBlocked
+//   burstBlocked           null, or why no bank of these cells can finish one burst: even at
+//                          full voltage with no ESR the converter would draw inputAmps (> its
+//                          limitAmps), or the full bank would sag below the cutoff
 import { energyJoules, modelBank } from './bank';
 import { solveBurstFloor } from './burst';
 import { buildDischargeTable, traceDischarge } from './discharge';
-import { efficiencyBreakVolts } from './efficiency';
+import { efficiencyAt, efficiencyBreakVolts, inputCurrentAmps } from './efficiency';
 import { averageOutputWatts, bankWattsCurve } from './load';
 import { marginOverWindow } from './margin';
 import { longestNight, nightAfter } from './nights';
@@ -68,6 +72,14 @@ export interface BankPlan {
   panelChargeSeconds: number;
   ccChargeSeconds: number;
   dischargeCurve: { t: number; volts: number }[];
+  burstBlocked: BurstBlocked | null;
+}
+
+/** No cell count helps: the burst asks the converter for more than its input limit even from a full, ideal bank. */
+export interface BurstBlocked {
+  inputAmps: number;
+  limitAmps: number;
+  fullVolts: number;
 }
 
 export function planBank(input: PlanInput): BankPlan {
@@ -88,6 +100,7 @@ export function planBank(input: PlanInput): BankPlan {
   const chosen = assess(cellsParallel ?? maxParallel);
   const cutoff = converter.cutoffVolts;
   const { farads, maxVolts } = chosen.bank;
+  const burstBlocked = cellsParallel === null ? burstLimit({ converter, load, fullVolts: maxVolts }) : null;
   return {
     cellsParallel,
     evaluatedCellsParallel: cellsParallel ?? maxParallel,
@@ -101,8 +114,20 @@ export function planBank(input: PlanInput): BankPlan {
     panelChargeSeconds:
       (0.5 * farads * (maxVolts ** 2 - cutoff ** 2)) / (input.panelWatts * input.chargerEfficiency * input.sunFactor),
     ccChargeSeconds: (farads * (maxVolts - cutoff)) / input.chargerAmps,
-    dischargeCurve: curveFromFull({ bank: chosen.bank, converter, load, floorVolts: chosen.floorVolts, windowSeconds, stepSeconds: input.curveStepSeconds ?? 600 }),
+    dischargeCurve: burstBlocked ? [] : curveFromFull({ bank: chosen.bank, converter, load, floorVolts: chosen.floorVolts, windowSeconds, stepSeconds: input.curveStepSeconds ?? 600 }),
+    burstBlocked,
   };
+}
+
+/**
+ * The burst's converter input current from a full bank of ideal cells (no ESR, no sag):
+ * I_in = V_out·I_burst / (η·V_full). Above the converter's input limit, more cells in
+ * parallel cannot help (they lower ESR and sag, not this current).
+ */
+export function burstLimit({ converter, load, fullVolts }: { converter: ConverterSpec; load: LoadSpec; fullVolts: number }): BurstBlocked | null {
+  const eta = efficiencyAt({ efficiency: converter.efficiency, volts: fullVolts });
+  const inputAmps = inputCurrentAmps({ outputWatts: converter.outputVolts * load.burstAmps, eta, inputVolts: fullVolts });
+  return inputAmps > converter.inputLimitAmps ? { inputAmps, limitAmps: converter.inputLimitAmps, fullVolts } : null;
 }
 
 /** The planned bank: the input's cell type, `cellsSeries` in each string, `cellsParallel` strings. */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { benchFields, MAX_SAMPLES } from './bench';
-import { finiteNumber, positiveNumber } from './model';
+import { finiteNumber, positiveNumber, upTo } from './model';
 
 /**
  * POST /api/v1/bench/runs (deployer or owner): characterize one cell's constant-current
@@ -15,8 +15,8 @@ const label = (what: string) => z.string({ message: `Name the ${what}.` }).trim(
 export const benchRunFields = z.object({
   batch_label: label('batch'),
   cell_label: label('cell'),
-  nominal_farads: positiveNumber('F').max(100_000),
-  nominal_esr_ohms: positiveNumber('Ω').max(100),
+  nominal_farads: positiveNumber('F').max(100_000, upTo(100_000, 'F')),
+  nominal_esr_ohms: positiveNumber('Ω').max(100, upTo(100, 'Ω')),
   ...benchFields,
 });
 

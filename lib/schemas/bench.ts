@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { EnergyInputError, NeverCrossesError, type Characterization } from '../energy';
 import { pointersFromZod, ProblemError, problems, type InvalidParam } from '../errors';
-import { finiteNumber, positiveNumber } from './model';
+import { finiteNumber, positiveNumber, upTo } from './model';
 
 /**
  * POST /api/v1/bench/characterize, either as JSON
@@ -18,8 +18,8 @@ const MAX_REPORTED_ERRORS = 20;
 const sample = z.tuple([finiteNumber('s'), finiteNumber('V').min(-1000).max(1000)]);
 
 export const benchFields = {
-  rated_volts: positiveNumber('V').max(1000),
-  current_amps: positiveNumber('A').max(1000),
+  rated_volts: positiveNumber('V').max(1000, upTo(1000, 'V')),
+  current_amps: positiveNumber('A').max(1000, upTo(1000, 'A')),
 };
 
 export const benchJsonBody = z.object({

@@ -12,6 +12,7 @@ import {
   nonNegativeNumber,
   siteFromWire,
   siteModelSchema,
+  upTo,
 } from './model';
 
 /**
@@ -23,7 +24,7 @@ export const evaluateBody = z.object({
   converter: converterSchema,
   load: loadSchema,
   site: siteModelSchema,
-  volts: nonNegativeNumber('V').max(100),
+  volts: nonNegativeNumber('V').max(100, upTo(100, 'V')),
   at: z.iso.datetime({ offset: true, message: 'Give an RFC 3339 instant with its offset, e.g. 2026-12-21T16:00:00Z.' }),
 }).strict();
 

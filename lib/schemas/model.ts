@@ -10,45 +10,52 @@ import type { InvalidParam } from '../errors';
 // The message only for a missing or non-number value: given to z.number() as a plain message,
 // zod 4 would put it on every failed range check too ("Enter a number (°)." for 95°).
 const finite = (unit: string) => z.number({ error: (issue) => (issue.code === 'invalid_type' ? `Enter a number (${unit}).` : undefined) }).finite();
-const positive = (unit: string) => finite(unit).positive(`Must be above 0 ${unit}.`);
-const nonNegative = (unit: string) => finite(unit).min(0, `Must not be negative (${unit}).`);
+const withUnit = (n: number, unit: string) => `${n}${unit && !unit.includes('..') ? ` ${unit}` : ''}`;
+const positive = (unit: string) => finite(unit).positive(`Must be above ${withUnit(0, unit)}.`);
+const nonNegative = (unit: string) => finite(unit).min(0, 'Must not be negative.');
+/** "Must be at most 10 A.": a range limit in the field's unit (the forms rescale it to theirs). */
+export const upTo = (max: number, unit: string) => `Must be at most ${withUnit(max, unit)}.`;
 
 export const bankSchema = z.object({
-  cells_series: z.number().int('Whole cells only.').min(1).max(64),
-  cells_parallel: z.number().int('Whole cells only.').min(1).max(256),
-  cell_farads: positive('F').max(100_000),
-  cell_rated_volts: positive('V').max(10),
-  cell_esr_ohms: nonNegative('Ω').max(100),
-  cell_leakage_amps: nonNegative('A').max(1),
+  cells_series: z.number().int('Whole cells only.').min(1, 'At least 1 cell.').max(64, 'At most 64 cells in series.'),
+  cells_parallel: z.number().int('Whole cells only.').min(1, 'At least 1 string.').max(256, 'At most 256 strings in parallel.'),
+  cell_farads: positive('F').max(100_000, upTo(100_000, 'F')),
+  cell_rated_volts: positive('V').max(10, upTo(10, 'V')),
+  cell_esr_ohms: nonNegative('Ω').max(100, upTo(100, 'Ω')),
+  cell_leakage_amps: nonNegative('A').max(1, upTo(1, 'A')),
 }).strict();
 
+// Below 10 % is no working boost converter: most often a percentage typed as a fraction
+// (0.85 meaning 85 %) in a form that takes percent, so it is refused rather than modelled.
+const MIN_EFFICIENCY = 0.1;
+const eta = () => finite('0..1').min(MIN_EFFICIENCY, `Must be at least ${MIN_EFFICIENCY}.`).max(1, 'Must be at most 1.');
 export const efficiencySchema = z.union([
-  finite('0..1').gt(0, 'Must be above 0.').max(1, 'Must be at most 1.'),
-  z.array(z.tuple([nonNegative('V').max(100), finite('0..1').gt(0).max(1)])).min(1).max(64),
+  eta(),
+  z.array(z.tuple([nonNegative('V').max(100, upTo(100, 'V')), eta()])).min(1).max(64),
 ]);
 
 export const converterSchema = z.object({
-  start_volts: positive('V').max(100),
-  cutoff_volts: positive('V').max(100),
-  output_volts: positive('V').max(60),
+  start_volts: positive('V').max(100, upTo(100, 'V')),
+  cutoff_volts: positive('V').max(100, upTo(100, 'V')),
+  output_volts: positive('V').max(60, upTo(60, 'V')),
   efficiency: efficiencySchema,
-  input_limit_amps: positive('A').max(100),
+  input_limit_amps: positive('A').max(100, upTo(100, 'A')),
 }).strict();
 
 export const loadSchema = z.object({
-  sleep_amps: nonNegative('A').max(10),
-  awake_seconds: nonNegative('s').max(86_400),
-  awake_amps: nonNegative('A').max(10),
-  burst_seconds: nonNegative('s').max(3600),
-  burst_amps: nonNegative('A').max(10),
-  interval_seconds: z.number().int('Whole seconds.').min(1).max(86_400),
-  max_interval_seconds: z.number().int('Whole seconds.').min(1).max(7 * 86_400),
+  sleep_amps: nonNegative('A').max(10, upTo(10, 'A')),
+  awake_seconds: nonNegative('s').max(86_400, upTo(86_400, 's')),
+  awake_amps: nonNegative('A').max(10, upTo(10, 'A')),
+  burst_seconds: nonNegative('s').max(3600, upTo(3600, 's')),
+  burst_amps: nonNegative('A').max(10, upTo(10, 'A')),
+  interval_seconds: z.number().int('Whole seconds.').min(1, 'At least 1 s.').max(86_400, 'At most 86400 s (a day).'),
+  max_interval_seconds: z.number().int('Whole seconds.').min(1, 'At least 1 s.').max(7 * 86_400, 'At most 604800 s (a week).'),
 }).strict();
 
 export const siteModelSchema = z.object({
   lat: finite('°').min(-90, 'Latitude is between −90° and 90°.').max(90, 'Latitude is between −90° and 90°.'),
   lon: finite('°').min(-180, 'Longitude is between −180° and 180°.').max(180, 'Longitude is between −180° and 180°.'),
-  recharge_elevation_deg: finite('°').min(-18).max(60).default(-0.833),
+  recharge_elevation_deg: finite('°').min(-18, 'At least −18° (astronomical twilight).').max(60, 'At most 60°.').default(-0.833),
 }).strict();
 
 export type BankWire = z.infer<typeof bankSchema>;

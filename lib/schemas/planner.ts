@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { bankSpec, checkNodeSpecs, modelBank, type BankPlan, type PlanInput } from '../energy';
+import { bankSpec, checkNodeSpecs, modelBank, shortCircuitAmps, type BankPlan, type PlanInput } from '../energy';
 import type { InvalidParam } from '../errors';
 import {
   converterFromWire,
@@ -10,6 +10,7 @@ import {
   positiveNumber,
   siteFromWire,
   siteModelSchema,
+  upTo,
 } from './model';
 
 /*
@@ -55,7 +56,13 @@ import {
  *   cc_charge_seconds         cutoff → full at constant current: C·(V_max − V_cut) ÷ charger_amps
  *   discharge_curve           [[seconds from sunset, bank volts], ...] from full over the
  *                             window, at most 300 points evenly spaced (the last one at the
- *                             window's end); it ends early where the bank reaches the burst floor
+ *                             window's end); it ends early where the bank reaches the burst floor;
+ *                             empty when burst_blocked
+ *   burst_blocked             null, or {input_amps, limit_amps, full_volts} when no cell count can
+ *                             finish one transmit burst: from a full bank of ideal cells the
+ *                             converter would draw input_amps = V_out·I_burst ÷ (η·V_full), over
+ *                             its input limit
+ *   short_circuit_amps        V_max ÷ ESR of the planned bank (null for ESR 0 Ω)
  * Bad input: 422 problem+json with a JSON pointer per bad field, e.g. /converter/cutoff_volts
  * when the cutoff is not below cells_series × cell.rated_volts.
  */
@@ -63,26 +70,26 @@ import {
 export const MAX_CURVE_POINTS = 300;
 
 const cellSchema = z.object({
-  farads: positiveNumber('F').max(100_000),
-  rated_volts: positiveNumber('V').max(10),
-  esr_ohms: nonNegativeNumber('Ω').max(100),
-  leakage_amps: nonNegativeNumber('A').max(1),
+  farads: positiveNumber('F').max(100_000, upTo(100_000, 'F')),
+  rated_volts: positiveNumber('V').max(10, upTo(10, 'V')),
+  esr_ohms: nonNegativeNumber('Ω').max(100, upTo(100, 'Ω')),
+  leakage_amps: nonNegativeNumber('A').max(1, upTo(1, 'A')),
 }).strict();
 
 export const plannerBody = z.object({
   load: loadSchema,
   converter: converterSchema,
   cell: cellSchema,
-  cells_series: z.number().int('Whole cells only.').min(1).max(64),
+  cells_series: z.number().int('Whole cells only.').min(1, 'At least 1 cell.').max(64, 'At most 64 cells in series.'),
   site: siteModelSchema,
   date: z.iso.date({ message: 'Give a calendar date, e.g. 2026-12-21.' }).optional(),
   year: z.number().int().min(2000).max(2100).optional(),
   extra_days: z.number().int('Whole days.').min(0).max(30).default(0),
-  target_margin: positiveNumber('').max(100).default(1.5),
-  panel_watts: positiveNumber('W').max(10_000),
+  target_margin: positiveNumber('×').max(100, upTo(100, '×')).default(1.5),
+  panel_watts: positiveNumber('W').max(10_000, upTo(10_000, 'W')),
   charger_efficiency: positiveNumber('0..1').max(1, 'Must be at most 1.'),
   sun_factor: positiveNumber('0..1').max(1, 'Must be at most 1.'),
-  charger_amps: positiveNumber('A').max(1000),
+  charger_amps: positiveNumber('A').max(1000, upTo(1000, 'A')),
   max_cells_parallel: z.number().int().min(1).max(1000).default(1000),
 }).strict();
 
@@ -157,5 +164,10 @@ export function planToWire(plan: BankPlan, input: PlanInput) {
     panel_charge_seconds: plan.panelChargeSeconds,
     cc_charge_seconds: plan.ccChargeSeconds,
     discharge_curve: plan.dischargeCurve.slice(0, MAX_CURVE_POINTS).map((p) => [p.t, p.volts]),
+    burst_blocked: plan.burstBlocked
+      ? { input_amps: plan.burstBlocked.inputAmps, limit_amps: plan.burstBlocked.limitAmps, full_volts: plan.burstBlocked.fullVolts }
+      : null,
+    // null for an ESR of 0 Ω (no finite figure: the caution still stands)
+    short_circuit_amps: model.esrOhms > 0 ? shortCircuitAmps({ volts: model.maxVolts, esrOhms: model.esrOhms }) : null,
   };
 }

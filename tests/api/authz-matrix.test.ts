@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -58,6 +59,7 @@ const EXPECTED: Record<string, Rule> = {
   'GET /api/v1/subscriptions': 'viewer',
   'PUT /api/v1/subscriptions': 'viewer',
   'POST /api/v1/team/invitations': 'owner',
+  'DELETE /api/v1/team/invitations/[invitationId]': 'owner',
   'PATCH /api/v1/team/members/[membershipId]': 'owner',
   'DELETE /api/v1/team/members/[membershipId]': 'owner',
   'GET /api/v1/team': 'owner',
@@ -94,7 +96,9 @@ beforeAll(async () => {
   if (!alert) [alert] = await db()('alerts').insert({ org_id: org.id, node_id: node.id, kind: 'node_silent', detail: '{}' }).then((r) => r.map((id) => ({ id })));
   let visit = await db()('field_visits').where({ org_id: org.id }).first('id');
   if (!visit) [visit] = await db()('field_visits').insert({ org_id: org.id, node_id: node.id, visited_on: '2026-11-30', work_done: 'matrix fixture' }).then((r) => r.map((id) => ({ id })));
-  ids = { nodeId: node.id, siteId: node.site_id, credentialId: cred.id, membershipId: member.id, alertId: alert.id, visitId: visit.id };
+  // An open invitation of this organization, for the other organization's owner to try.
+  const [invitationId] = await db()('invitations').insert({ org_id: org.id, email: 'matrix-invitee@larkspur.example', role: 'viewer', token_sha256: randomBytes(32), expires_at: new Date(Date.now() + 86_400_000) });
+  ids = { nodeId: node.id, siteId: node.site_id, credentialId: cred.id, membershipId: member.id, alertId: alert.id, visitId: visit.id, invitationId };
   sessions = {
     viewer: await signedIn('viewer@larkspur.example'),
     deployer: await signedIn('deployer@larkspur.example'),

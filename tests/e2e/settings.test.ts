@@ -47,7 +47,7 @@ describe('node settings form in Chromium', () => {
     const reply = await refused;
     expect(reply.status()).toBe(422);
     const serverWords = (await reply.json()).errors.find((e: { pointer: string }) => e.pointer === '/converter/cutoff_volts').detail;
-    expect(serverWords).toBe("must be below the bank's maximum (5.4 V)");
+    expect(serverWords).toBe("Must be below the bank's maximum (5.4 V).");
     await expect(page.locator('#node-converter-cutoff_volts-error').textContent()).resolves.toBe(serverWords);
     await expect(page.locator('#node-converter-cutoff_volts').getAttribute('aria-invalid')).resolves.toBe('true');
     await screenshot(page, 'settings-node-new-error');

@@ -12,9 +12,11 @@ const detailsOf = (result: { success: boolean; error?: unknown }) =>
 describe('field errors in plain words', () => {
   it('a range check without its own message reads as words, not as the validator’s default', () => {
     const load = { sleep_amps: 0, awake_seconds: 1, awake_amps: 0.01, burst_seconds: 0, burst_amps: 0, interval_seconds: 0, max_interval_seconds: 600 };
-    expect(detailsOf(loadSchema.safeParse(load))).toEqual(['/interval_seconds Must be at least 1.']);
+    expect(detailsOf(loadSchema.safeParse(load))).toEqual(['/interval_seconds At least 1 s.']);
     const bank = { cells_series: 2, cells_parallel: 1, cell_farads: 1, cell_rated_volts: 11, cell_esr_ohms: 0.1, cell_leakage_amps: 0 };
-    expect(detailsOf(bankSchema.safeParse(bank))).toEqual(['/cell_rated_volts Must be at most 10.']);
+    expect(detailsOf(bankSchema.safeParse(bank))).toEqual(['/cell_rated_volts Must be at most 10 V.']);
+    // a limit written without its own words still reads as words
+    expect(detailsOf(bankSchema.safeParse({ ...bank, cell_rated_volts: 2.7, cells_series: 0 }))).toEqual(['/cells_series At least 1 cell.']);
   });
 
   it('a number out of range is not called “not a number”; a missing one is', () => {
@@ -28,7 +30,12 @@ describe('field errors in plain words', () => {
     expect(inFieldUnits('Must be at most 10.', { scale: 1e-6, unit: 'µA' })).toBe('Must be at most 10000000 µA.');
     expect(inFieldUnits('Enter a number (0..1).', { scale: 0.01, unit: '%' })).toBe('Enter a number (%).');
     expect(inFieldUnits('Whole cells only.', { scale: 0.01, unit: '%' })).toBe('Whole cells only.');
-    expect(inFieldUnits('Must be at most 90.', { scale: 1, unit: '°' })).toBe('Must be at most 90.');
+    // a limit without a unit gets the field's; one in SI is rescaled to the field's unit
+    expect(inFieldUnits('Must be at most 90.', { scale: 1, unit: '°' })).toBe('Must be at most 90°.');
+    expect(inFieldUnits('Must be at most 10 A.', { scale: 1e-3, unit: 'mA' })).toBe('Must be at most 10000 mA.');
+    expect(inFieldUnits('Must be above 0 A.', { scale: 1e-3, unit: 'mA' })).toBe('Must be above 0 mA.');
+    expect(inFieldUnits('Must not be negative.', { scale: 1e-6, unit: 'µA' })).toBe('Must not be negative.');
+    expect(inFieldUnits('Must be at most 100 ×.', { scale: 1, unit: '×' })).toBe('Must be at most 100 ×.');
   });
 });
 

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { BenchBoard } from '@/components/bench/bench-board';
+import { BenchCautions } from '@/components/bench/bench-cautions';
 import { BenchMethod } from '@/components/bench/bench-method';
 import { requireMember } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
@@ -18,7 +19,7 @@ export default async function BenchPage() {
         Measure each cell of a batch before it goes out: capacitance and ESR against the maker&apos;s rating.
         {canUpload ? '' : ' Deployers and owners upload logs; you can read every batch.'}
       </p>
-      <div className="mt-4"><BenchMethod /></div>
+      <div className="mt-4 grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]"><BenchMethod /><BenchCautions /></div>
       <BenchBoard initial={batches} canUpload={canUpload} />
     </section>
   );

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
+import { InvitationRow } from '@/components/team/invitation-row';
 import { InviteForm } from '@/components/team/invite-form';
 import { MemberRow } from '@/components/team/member-row';
 import { currentMember } from '@/lib/auth/guard';
@@ -17,20 +18,22 @@ export default async function TeamPage() {
     return <p className="text-ink-muted">Only owners manage the team. Ask an owner of {member.orgName} to change roles or invite people.</p>;
   }
   const [members, invitations] = await Promise.all([listMembersOfOrg(member.orgId), listInvitations(member.orgId)]);
+  const owners = members.filter((m) => m.role === 'owner').length;
   return (
     <section className="grid grid-cols-1 gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
       <div>
         <h1 className="text-2xl font-bold">Team</h1>
         <p className="mt-1 text-sm text-ink-muted">Role changes and removals take effect on the member&apos;s next request.</p>
         <ul className="mt-4" aria-label="Members">
-          {members.map((m) => <MemberRow key={m.membershipId} member={m} isSelf={m.userId === member.userId} />)}
+          {/* Keyed by role as well, so a row's select starts again from the role the server holds. */}
+          {members.map((m) => <MemberRow key={`${m.membershipId}:${m.role}`} member={m} isSelf={m.userId === member.userId} onlyOwner={m.role === 'owner' && owners <= 1} />)}
         </ul>
         {invitations.length ? (
           <>
             <h2 className="mt-8 font-bold">Open invitations</h2>
-            <ul className="mt-2 text-sm text-ink-muted">
+            <ul className="mt-2 text-sm text-ink-muted" aria-label="Open invitations">
               {invitations.map((i: { id: number; email: string; role: string; expiresAt: Date }) => (
-                <li key={i.id} className="border-t border-dusk-800 py-2">{i.email} as {i.role}, until <span className="figures">{formatInTimeZone(new Date(i.expiresAt), 'UTC', 'd MMM yyyy HH:mm')} UTC</span></li>
+                <InvitationRow key={i.id} invitation={{ id: i.id, email: i.email, role: i.role }} until={formatInTimeZone(new Date(i.expiresAt), 'UTC', 'd MMM yyyy HH:mm')} />
               ))}
             </ul>
           </>

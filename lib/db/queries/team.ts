@@ -39,6 +39,26 @@ export async function listInvitations(orgId: number) {
     .select('id', 'email', 'role', 'expires_at as expiresAt', 'created_at as createdAt').orderBy('id', 'desc');
 }
 
+/**
+ * Cancelling deletes the row, so the link's token matches nothing and the link page and accept
+ * route answer as for an unknown link. The invitation mail, if still waiting in the outbox, is
+ * dead-lettered unless another open invitation to the same address still needs it.
+ */
+export async function cancelInvitation(opts: { orgId: number; invitationId: number; byUserId: number }) {
+  await db().transaction(async (trx) => {
+    const inv = await trx('invitations').where({ id: opts.invitationId, org_id: opts.orgId }).forUpdate().first('id', 'email', 'used_at', 'expires_at');
+    if (!inv) throw problems.notFound('The invitation');
+    if (inv.used_at) throw problems.conflict('This invitation was accepted already. To take the access back, remove the member.');
+    if (new Date(inv.expires_at) <= new Date()) throw problems.conflict('This invitation has expired already: its link no longer works.');
+    await trx('invitations').where({ id: inv.id }).delete();
+    await writeAudit({ orgId: opts.orgId, userId: opts.byUserId, action: 'invitation_cancelled', target: inv.email }, trx);
+    const stillOpen = await trx('invitations').where({ org_id: opts.orgId, email: inv.email }).whereNull('used_at').andWhere('expires_at', '>', new Date()).first('id');
+    if (!stillOpen) {
+      await trx('email_outbox').where({ org_id: opts.orgId, purpose: 'invitation', to_address: inv.email, status: 'pending' }).update({ status: 'dead', last_error: 'invitation cancelled' });
+    }
+  });
+}
+
 export async function createInvitation(opts: { orgId: number; orgName: string; email: string; role: Role; byUserId: number; appUrl: string }) {
   const { token, sha256 } = newOneTimeToken();
   const email = normalizeEmail(opts.email);

@@ -23,8 +23,10 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
   const { detail, timeZone } = input;
   const info = KIND_INFO[input.kind];
   const brownout = localTime(detail.brownout_at, timeZone);
+  // A short node whose projected brownout lies before this pass has gone quiet since: say so.
+  const brownoutPassed = detail.brownout_at !== null && Date.parse(detail.brownout_at) <= Date.parse(detail.evaluated_at);
   const recharge = localTime(detail.recharge_at, timeZone);
-  const headline = subjectTail(input, brownout);
+  const headline = subjectTail(input, brownout, brownoutPassed);
   const subject = oneLine(`${input.reminder ? 'Reminder: ' : ''}${input.nodeName} at ${input.siteName} is ${headline}`);
   const rows: [string, string][] = [
     ['Node', oneLine(input.nodeName)],
@@ -32,16 +34,12 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
     ['State', detail.state],
     ['Night margin', formatMargin(detail.margin)],
     ['Bank', typeof detail.volts === 'number' ? `${detail.volts.toFixed(2)} V (${Math.round((100 * detail.volts) / detail.max_volts)} % of the rated ${detail.max_volts.toFixed(2)} V)` : 'no reading'],
-    ['Projected brownout', brownout ?? 'none before recharge'],
+    ['Projected brownout', brownout ? `${brownout}${brownoutPassed ? ' (passed, no report since)' : ''}` : 'none before recharge'],
     ['Recharge', recharge ?? 'not within 7 days'],
     ['Last reading', localTime(detail.last_reading_at, timeZone) ?? 'none'],
   ];
   // The draw explains a reserve, not a bank above its rating.
-  const cause = input.kind === 'over_voltage'
-    ? 'a charger that does not regulate (or regulates too high), bank settings that do not match the bank (cells in series, cell rating), or a calibration that reads high.'
-    : input.kind === 'dark_through_day'
-      ? `no report through the day of ${dayWords(detail, timeZone)}: the bank is not refilling. A panel that is dirty, shaded, unplugged or broken, a charger fault, or a failed cell; a fully overcast day can also keep it down.`
-      : likelyCause(detail);
+  const cause = causeOf(input.kind, detail, timeZone);
   const link = nodeLink(input.appUrl, input.nodeId);
   const intro = `${oneLine(input.nodeName)} — ${info.title}.`;
   const text = [
@@ -70,10 +68,27 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
   return { subject, text, html };
 }
 
-function subjectTail(input: AlertMailInput, brownout: string | null): string {
+/** Why, in one sentence: the draw explains a reserve; a quiet node or a bank over its rating has other causes. */
+function causeOf(kind: AlertKind, detail: AlertDetail, timeZone: string): string {
+  switch (kind) {
+    case 'over_voltage':
+      return 'a charger that does not regulate (or regulates too high), bank settings that do not match the bank (cells in series, cell rating), or a calibration that reads high.';
+    case 'dark_through_day':
+      return `no report through the day of ${dayWords(detail, timeZone)}: the bank is not refilling. A panel that is dirty, shaded, unplugged or broken, a charger fault, or a failed cell; a fully overcast day can also keep it down.`;
+    case 'node_silent':
+      return `its bank was healthy at its last report (night margin ${formatMargin(detail.margin)}), so power is not the cause: the radio link (antenna, cable, gateway, interference) or the firmware (a hang or a crash loop).`;
+    case 'node_dark':
+      return `its last report was at or near the burst floor, so it has most likely browned out; ${likelyCause(detail)}`;
+    default:
+      return likelyCause(detail);
+  }
+}
+
+function subjectTail(input: AlertMailInput, brownout: string | null, brownoutPassed: boolean): string {
   const d = input.detail;
   switch (input.kind) {
     case 'reserve_short':
+      if (brownoutPassed) return `short: its projected brownout at ${brownout} has passed with no report since`;
       return `short: brownout projected ${brownout ?? 'before recharge'} (margin ${formatMargin(d.margin)})`;
     case 'reserve_thin':
       return `thin (margin ${formatMargin(d.margin)})`;

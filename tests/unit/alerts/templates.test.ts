@@ -59,3 +59,28 @@ describe('the still-dark-after-a-day e-mail', () => {
   });
 });
 
+
+describe('the cause a mail gives fits its kind', () => {
+  const base = { thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, missedDay: null };
+  const draw = { measured_watts: 0.0021, modelled_watts: 0.002, draw_ratio: 1.05 };
+  const mail = (kind: 'node_silent' | 'reserve_short', d: ReturnType<typeof alertDetail>) =>
+    buildAlertMail({ kind, detail: d, nodeId: 3, nodeName: 'N-3', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x' });
+
+  it('a node silent while healthy points at the link or firmware, never at a small bank', () => {
+    const silent = { ...alertDetail({ ...base, status: statusWith({ state: 'silent', margin: 17.9 }), measuredWatts: 0.0021 }), ...draw };
+    const text = mail('node_silent', silent).text;
+    expect(text).toMatch(/Likely cause: its bank was healthy .*17\.90×.*radio link/);
+    expect(text).not.toMatch(/bank is too small/);
+  });
+
+  it('a short alert written after its projected brownout says it has passed', () => {
+    const evaluated = new Date('2026-11-20T08:50:00Z');
+    const late = alertDetail({ ...base, status: statusWith({ state: 'short', margin: 0.4, brownout_at: new Date('2026-11-20T06:36:00Z'), evaluated_at: evaluated }), measuredWatts: null });
+    const m = mail('reserve_short', late);
+    expect(m.subject).toContain('projected brownout at');
+    expect(m.subject).toContain('has passed with no report since');
+    expect(m.text).toContain('(passed, no report since)');
+    const ahead = alertDetail({ ...base, status: statusWith({ state: 'short', margin: 0.4, brownout_at: new Date('2026-11-20T10:36:00Z'), evaluated_at: evaluated }), measuredWatts: null });
+    expect(mail('reserve_short', ahead).subject).toContain('brownout projected');
+  });
+});

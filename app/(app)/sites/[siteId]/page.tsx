@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { DeleteSite } from '@/components/sites/delete-site';
+import { fmtDeg, fmtLat, fmtLon } from '@/components/sites/site-card';
 import { SiteForm } from '@/components/sites/site-form';
 import { can } from '@/lib/auth/roles';
 import { listRetiredNodes } from '@/lib/db/queries/sites';
@@ -25,7 +26,7 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
     <section className="flex flex-col gap-4">
       <div>
         <Link href="/sites" className="text-sm text-tide underline-offset-2 hover:underline">← Sites</Link>
-        <h1 className="mt-1 text-2xl font-bold" data-testid="site-name">{site.name}</h1>
+        <h1 className="mt-1 text-2xl font-bold [overflow-wrap:anywhere]" data-testid="site-name">{site.name}</h1>
         <p className="text-sm text-ink-muted">{nodes} node{nodes === 1 ? '' : 's'} on this site.</p>
       </div>
       {can(member.role, 'sites:write') ? (
@@ -35,10 +36,10 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
         </>
       ) : (
         <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-4 gap-y-1 rounded-xl border border-dusk-700 bg-dusk-900 p-4 text-sm" data-testid="site-readonly">
-          <dt className="text-ink-faint">Latitude</dt><dd className="figures">{site.lat}°</dd>
-          <dt className="text-ink-faint">Longitude</dt><dd className="figures">{site.lon}°</dd>
+          <dt className="text-ink-faint">Latitude</dt><dd className="figures">{fmtLat(site.lat)}</dd>
+          <dt className="text-ink-faint">Longitude</dt><dd className="figures">{fmtLon(site.lon)}</dd>
           <dt className="text-ink-faint">Time zone</dt><dd>{site.time_zone}</dd>
-          <dt className="text-ink-faint">Recharge elevation</dt><dd className="figures">{site.recharge_elevation_deg}°</dd>
+          <dt className="text-ink-faint">Recharge elevation</dt><dd className="figures">{fmtDeg(site.recharge_elevation_deg)}</dd>
           <dt className="text-ink-faint">Notes</dt><dd className="whitespace-pre-line">{site.notes || '—'}</dd>
         </dl>
       )}
