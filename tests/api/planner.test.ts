@@ -101,6 +101,30 @@ describe('POST /api/v1/planner', () => {
     expect(date.body.errors[0].pointer).toBe('/date');
   });
 
+  it('says when no bank of these cells can finish the burst, with the converter current, and draws no curve', async () => {
+    // I_in = V_out·I_burst/(η·V_full) (REFERENCES.md, boost converter): 3.3 V × 5 A / (0.85 × 5.4 V) = 3.59 A, over the 2 A limit
+    const res = await plan({ load: { ...load, burst_amps: 5 } });
+    expect(res.status).toBe(200);
+    expect(res.body.cells_parallel).toBeNull();
+    expect(res.body.burst_blocked.input_amps).toBeCloseTo((3.3 * 5) / (0.85 * 5.4), 6);
+    expect(res.body.burst_blocked.limit_amps).toBe(2);
+    expect(res.body.discharge_curve).toEqual([]);
+    // an ordinary plan has none, and its short-circuit figure is V_max ÷ ESR of the bank
+    const ok = await plan();
+    expect(ok.body.burst_blocked).toBeNull();
+    expect(ok.body.short_circuit_amps).toBeCloseTo(ok.body.bank_max_volts / ok.body.bank_esr_ohms, 6);
+  });
+
+  it('refuses an efficiency typed as a fraction of a percent (0.85 % for 85 %) and says the limits in units', async () => {
+    const res = await plan({ converter: { ...converter, efficiency: 0.0085 } });
+    expect(res.status).toBe(422);
+    expect(res.body.errors).toEqual([{ pointer: '/converter/efficiency', detail: 'Must be at least 0.1.' }]);
+    const big = await plan({ cell: { ...cell, farads: 200_000 } });
+    expect(big.body.errors).toEqual([{ pointer: '/cell/farads', detail: 'Must be at most 100000 F.' }]);
+    const start = await plan({ converter: { ...converter, start_volts: 0.5 } });
+    expect(start.body.errors).toEqual([{ pointer: '/converter/start_volts', detail: 'Must not be below the cutoff (0.8 V).' }]);
+  });
+
   it('answers 401 signed out', async () => {
     const res = await api().post('/api/v1/planner').set('origin', process.env.APP_URL!).send(base);
     expect(res.status).toBe(401);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { marginOverWindow, modelBank, planBank, solveBurstFloor } from '@/lib/energy';
+import { burstLimit, marginOverWindow, modelBank, planBank, solveBurstFloor } from '@/lib/energy';
 import type { PlanInput } from '@/lib/energy';
 import { converter, load, site } from './fixtures';
 
@@ -79,5 +79,19 @@ describe('sizing planner', () => {
     expect(hopeless.cellsParallel).toBeNull();
     expect(hopeless.evaluatedCellsParallel).toBe(3);
     expect(hopeless.margin).toBeLessThan(1.5);
+  });
+});
+
+describe('a burst no bank can carry', () => {
+  // REFERENCES.md, boost converter worked example: 5 V in, 10 V out at 0.8 A, η = 80 % → I_in = 2 A.
+  const converter = { startVolts: 1, cutoffVolts: 0.8, outputVolts: 10, efficiency: 0.8, inputLimitAmps: 1.5 };
+  const load = { sleepAmps: 0, awakeSeconds: 0, awakeAmps: 0, burstSeconds: 1, burstAmps: 0.8, intervalSeconds: 600, maxIntervalSeconds: 3600 };
+  it('is blocked when the ideal input current from a full bank is over the limit (2 A > 1.5 A)', () => {
+    const blocked = burstLimit({ converter, load, fullVolts: 5 })!;
+    expect(blocked.inputAmps).toBeCloseTo(2, 12);
+    expect(blocked.limitAmps).toBe(1.5);
+  });
+  it('is not blocked with a 2.5 A limit: more cells can then lower the sag', () => {
+    expect(burstLimit({ converter: { ...converter, inputLimitAmps: 2.5 }, load, fullVolts: 5 })).toBeNull();
   });
 });
