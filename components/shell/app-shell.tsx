@@ -2,8 +2,8 @@ import Link from 'next/link';
 import type { ReactNode } from 'react';
 import type { Member } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
-import { NavGlyph } from './nav-glyph';
 import { NAV_ITEMS } from './nav-items';
+import { NavLinks } from './nav-links';
 import { OrgSwitcher, type OrgChoice } from './org-switcher';
 import { SignOutButton } from './sign-out-button';
 import { ThemeToggle } from './theme-toggle';
@@ -13,6 +13,10 @@ export function AppShell({ member, organizations, children }: { member: Member; 
   const items = NAV_ITEMS.filter((i) => can(member.role, i.permission));
   return (
     <div className="min-h-screen md:pl-20">
+      {/* The first stop of the Tab key: past the rail and the header, straight to the page. */}
+      <a href="#main" className="sr-only rounded-md border border-dusk-700 bg-dusk-900 px-4 py-2 text-sm font-bold text-ink focus:not-sr-only focus:fixed focus:left-3 focus:top-3 focus:z-50" data-testid="skip-link">
+        Skip to content
+      </a>
       <nav aria-label="Main" className="fixed inset-y-0 left-0 z-20 hidden w-20 flex-col items-center gap-1 border-r border-dusk-800 bg-dusk-900 py-4 md:flex">
         <Link href="/fleet" className="mb-4" aria-label="Duskwatch, tonight">
           <svg width="26" height="26" viewBox="0 0 22 22" aria-hidden="true">
@@ -20,12 +24,7 @@ export function AppShell({ member, organizations, children }: { member: Member; 
             <path d="M5 15 A6 6 0 0 1 17 15" fill="rgb(var(--ember))" />
           </svg>
         </Link>
-        {items.map((i) => (
-          <Link key={i.href} href={i.href} className="flex w-16 flex-col items-center gap-1 rounded-lg py-2 text-[11px] text-ink-muted hover:bg-dusk-800 hover:text-ink" data-testid={`nav-${i.glyph}`}>
-            <NavGlyph glyph={i.glyph} />
-            {i.label}
-          </Link>
-        ))}
+        <NavLinks items={items} variant="rail" />
         <div className="mt-auto"><SignOutButton compact /></div>
       </nav>
 
@@ -43,15 +42,11 @@ export function AppShell({ member, organizations, children }: { member: Member; 
         </div>
       </header>
 
-      <div className="px-4 pb-24 pt-6 md:px-8 md:pb-10">{children}</div>
+      {/* tabIndex -1: the skip link moves focus here, not only the scroll position. */}
+      <main id="main" tabIndex={-1} className="px-4 pb-24 pt-6 focus:outline-none md:px-8 md:pb-10">{children}</main>
 
       <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 flex justify-around border-t border-dusk-800 bg-dusk-900 py-1.5 md:hidden">
-        {items.filter((i) => i.phone).map((i) => (
-          <Link key={i.href} href={i.href} className="flex flex-col items-center gap-0.5 px-2 py-1 text-[11px] text-ink-muted">
-            <NavGlyph glyph={i.glyph} />
-            {i.label}
-          </Link>
-        ))}
+        <NavLinks items={items.filter((i) => i.phone)} variant="tabs" />
       </nav>
     </div>
   );
