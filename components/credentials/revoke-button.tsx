@@ -1,24 +1,13 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
+import { useDangerAction } from '@/components/ui/use-danger-action';
 
 /** Revoke with an inline confirmation (keyboard-reachable, unlike a browser dialog in a test). */
 export function RevokeButton({ nodeId, credentialId, label }: { nodeId: number; credentialId: number; label: string }) {
   const router = useRouter();
-  const [asking, setAsking] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-
-  async function revoke() {
-    setBusy(true);
-    const res = await apiFetch(`/api/v1/nodes/${nodeId}/credentials/${credentialId}`, { method: 'DELETE' });
-    setBusy(false);
-    if (!res.ok) return setError(res.problem.detail ?? res.problem.title);
-    setAsking(false);
-    router.refresh();
-  }
+  const { asking, setAsking, busy, error, run } = useDangerAction(`/api/v1/nodes/${nodeId}/credentials/${credentialId}`);
+  const revoke = () => run(() => { setAsking(false); router.refresh(); });
 
   if (!asking) {
     return <button type="button" onClick={() => setAsking(true)} className="mt-2 rounded-md border border-hazard px-3 py-1.5 text-sm text-hazard hover:bg-dusk-800" data-testid="credential-revoke">Revoke…</button>;

@@ -1,9 +1,8 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
 import { ConfirmDanger } from '@/components/ui/confirm-danger';
-import { apiFetch } from '@/lib/client/api';
+import { useDangerAction } from '@/components/ui/use-danger-action';
 
 /**
  * Retire (delete) a node with an inline confirmation: it leaves the fleet, its device
@@ -11,17 +10,8 @@ import { apiFetch } from '@/lib/client/api';
  */
 export function RetireNode({ nodeId, name }: { nodeId: number; name: string }) {
   const router = useRouter();
-  const [asking, setAsking] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  async function retire() {
-    setBusy(true);
-    const res = await apiFetch(`/api/v1/nodes/${nodeId}`, { method: 'DELETE' });
-    setBusy(false);
-    if (!res.ok) return setError(res.problem.detail ?? res.problem.title);
-    router.push('/fleet');
-    router.refresh();
-  }
+  const { asking, setAsking, busy, error, setError, run } = useDangerAction(`/api/v1/nodes/${nodeId}`);
+  const retire = () => run(() => { router.push('/fleet'); router.refresh(); });
   return (
     <div className="mt-8 max-w-2xl rounded-xl border border-dusk-700 p-4" data-testid="node-retire-panel">
       <h2 className="text-sm font-bold">Retire this node</h2>

@@ -1,25 +1,14 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
 import { ConfirmDanger } from '@/components/ui/confirm-danger';
-import { apiFetch } from '@/lib/client/api';
+import { useDangerAction } from '@/components/ui/use-danger-action';
 
 /** One open invitation with Cancel and its inline confirmation; the link stops working at once. */
 export function InvitationRow({ invitation, until }: { invitation: { id: number; email: string; role: string }; until: string }) {
   const router = useRouter();
-  const [asking, setAsking] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-
-  async function cancel() {
-    setBusy(true);
-    const res = await apiFetch(`/api/v1/team/invitations/${invitation.id}`, { method: 'DELETE' });
-    setBusy(false);
-    if (!res.ok) return setError(res.problem.detail ?? res.problem.title);
-    setAsking(false);
-    router.refresh();
-  }
+  const { asking, setAsking, busy, error, setError, run } = useDangerAction(`/api/v1/team/invitations/${invitation.id}`);
+  const cancel = () => run(() => { setAsking(false); router.refresh(); });
 
   return (
     <li className="flex flex-wrap items-center gap-3 border-t border-dusk-800 py-2" data-testid="invitation-row">
