@@ -1,5 +1,5 @@
 import type { BenchBatchWire } from '@/lib/schemas/bench-runs';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 import { formatFarads, formatMilliohms, formatRatioPercent, formatRatioTimes } from './bench-format';
 import { CellFlags } from './cell-flags';
 
@@ -45,7 +45,7 @@ export function BenchBatches({ batches }: { batches: BenchBatchWire[] }) {
                     </td>
                     <td className="py-2 pr-3"><CellFlags run={c} /></td>
                     <td className="py-2 text-xs text-ink-muted">
-                      <span className="figures" suppressHydrationWarning>{formatInTimeZone(new Date(c.created_at), 'UTC', 'd MMM yyyy HH:mm')}</span>
+                      <span className="figures" suppressHydrationWarning>{formatInTimeZone(new Date(c.created_at), 'UTC', TIME_PATTERNS.record)}</span>
                       {c.uploaded_by ? <span className="block">{c.uploaded_by}</span> : null}
                     </td>
                   </tr>

@@ -2,7 +2,7 @@ import { StateGlyph } from '@/components/state-glyph';
 import { overVoltageWords } from '@/lib/alerts/kinds';
 import { NODE_STATE_INFO, NODE_STATES, type NodeState } from '@/lib/config/node-states';
 import type { FleetView } from '@/lib/db/queries/fleet';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatNearNow } from '@/lib/format/time';
 import { formatUntilOrAgo, secondsBetween } from './duration';
 
 /**
@@ -46,8 +46,8 @@ export function FleetSummary({ view, state, onState }: { view: FleetView; state:
         <p key={`od-${o.node_id}`} className="rounded-lg border border-hazard/60 bg-dusk-900 px-4 py-3" data-testid="overdue-brownout">
           <a href={`/nodes/${o.node_id}`} className="font-bold text-hazard underline-offset-2 hover:underline">{o.name}</a>
           <span className="text-ink-muted"> was projected to brown out at </span>
-          <time dateTime={o.at} className="figures font-bold" suppressHydrationWarning>{formatInTimeZone(new Date(o.at), o.time_zone)}</time>
-          <span className="text-ink-muted"> ({formatUntilOrAgo(secondsBetween(view.generated_at, o.at))}){o.last_reading_at ? <>; no report since <time dateTime={o.last_reading_at} className="figures" suppressHydrationWarning>{formatInTimeZone(new Date(o.last_reading_at), o.time_zone)}</time></> : null}.</span>
+          <time dateTime={o.at} className="figures font-bold" suppressHydrationWarning>{formatNearNow(new Date(o.at), o.time_zone, Date.parse(view.generated_at))}</time>
+          <span className="text-ink-muted"> ({formatUntilOrAgo(secondsBetween(view.generated_at, o.at))}){o.last_reading_at ? <>; no report since <time dateTime={o.last_reading_at} className="figures" suppressHydrationWarning>{formatNearNow(new Date(o.last_reading_at), o.time_zone, Date.parse(view.generated_at))}</time></> : null}.</span>
         </p>
       ))}
       {earliest ? (
@@ -55,7 +55,7 @@ export function FleetSummary({ view, state, onState }: { view: FleetView; state:
           <span className="text-ink-muted">{view.overdue_brownouts.length ? 'Next projected brownout: ' : 'Earliest projected brownout: '}</span>
           <a href={`/nodes/${earliest.node_id}`} className="font-bold text-hazard underline-offset-2 hover:underline">{earliest.name}</a>
           <span className="text-ink-muted"> at </span>
-          <time dateTime={earliest.at} className="figures font-bold" suppressHydrationWarning>{formatInTimeZone(new Date(earliest.at), earliest.time_zone)}</time>
+          <time dateTime={earliest.at} className="figures font-bold" suppressHydrationWarning>{formatNearNow(new Date(earliest.at), earliest.time_zone, Date.parse(view.generated_at))}</time>
           <span className="text-ink-muted"> ({formatUntilOrAgo(secondsBetween(view.generated_at, earliest.at))})</span>
         </p>
       ) : (

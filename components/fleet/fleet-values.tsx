@@ -1,7 +1,7 @@
 import { DRAW_ANOMALY_RATIO, overVoltageFraction } from '@/lib/alerts/kinds';
 import { drawScaleFrom } from '@/lib/energy/evaluate';
 import type { FleetNodeWire } from '@/lib/db/queries/fleet';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatNearNow } from '@/lib/format/time';
 import { formatAge, formatJoules, formatMargin, formatPercent, formatVolts, formatWatts, formatWattHours } from '@/lib/format/units';
 import { formatUntilOrAgo, secondsBetween } from './duration';
 
@@ -64,7 +64,7 @@ export function LocalTime({ at, timeZone, now, empty = '—' }: { at: string | n
   const seconds = secondsBetween(now, at)!;
   return (
     <span className="figures">
-      <time dateTime={at} suppressHydrationWarning>{formatInTimeZone(new Date(at), timeZone)}</time>
+      <time dateTime={at} suppressHydrationWarning>{formatNearNow(new Date(at), timeZone, Date.parse(now))}</time>
       <span className="block text-xs text-ink-muted">{formatUntilOrAgo(seconds)}</span>
     </span>
   );

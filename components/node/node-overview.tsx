@@ -3,7 +3,7 @@
 import { StateGlyph } from '@/components/state-glyph';
 import { DRAW_ANOMALY_RATIO, KIND_INFO, overVoltageFraction, overVoltageWords } from '@/lib/alerts/kinds';
 import { stateOfCharge } from '@/lib/energy';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatNearNow } from '@/lib/format/time';
 import { formatAge, formatJoules, formatMargin, formatPercent, formatVolts, formatWattHours, formatWatts } from '@/lib/format/units';
 import type { StatusReply } from '@/lib/series/wire';
 import { BankGauge } from './bank-gauge';
@@ -17,7 +17,7 @@ export function NodeOverview({ nodeId, initial }: { nodeId: number; initial: Sta
   const s = data ?? initial;
   const now = useNow({ startMs: initial.evaluated_at * 1000 });
   const tz = s.node.time_zone;
-  const at = (seconds: number | null, fallback = '—') => (seconds === null ? fallback : formatInTimeZone(new Date(seconds * 1000), tz));
+  const at = (seconds: number | null, fallback = '—') => (seconds === null ? fallback : formatNearNow(new Date(seconds * 1000), tz, s.evaluated_at * 1000));
   const sentence = tonightSentence({ s });
   const floorSoc = stateOfCharge({ volts: s.bank.burst_floor_volts, cutoffVolts: s.bank.cutoff_volts, maxVolts: s.bank.max_volts });
   const marginTone = s.margin === null ? 'ink' : s.margin < 1 ? 'hazard' : s.margin < 1.5 ? 'ink' : 'ember';

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { formatDuration } from '@/components/fleet/duration';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 import { SEARCH_LIMIT_SECONDS } from '@/lib/energy/sun';
 import { BankCaution } from '@/components/settings/bank-caution';
 import { formatAmps, formatJoules, formatMargin, formatVolts, formatWattHours } from '@/lib/format/units';
@@ -52,7 +52,7 @@ export function PlannerAnswer({ answer, busy, timeZone, cutoffVolts }: { answer:
       <dl className="grid grid-cols-2 gap-x-4 gap-y-3 text-sm sm:grid-cols-3">
         <Figure term="Energy at full">{formatJoules(answer.energy_full_joules)}<Sub>{formatWattHours(answer.energy_full_joules)}</Sub></Figure>
         <Figure term="Night length">{polar ? 'over 7 days' : formatDuration(answer.night_seconds)}
-          <Sub>{polar ? 'the sun stays below the recharge elevation' : answer.night_start ? <>from <span suppressHydrationWarning>{formatInTimeZone(new Date(answer.night_start), timeZone, 'd MMM HH:mm')}</span></> : 'no sunset'}</Sub>
+          <Sub>{polar ? 'the sun stays below the recharge elevation' : answer.night_start ? <>from <span suppressHydrationWarning>{formatInTimeZone(new Date(answer.night_start), timeZone, TIME_PATTERNS.event)}</span></> : 'no sunset'}</Sub>
         </Figure>
         <Figure term="Carried without sun">{formatDuration(answer.window_seconds)}<Sub>night + extra days</Sub></Figure>
         <Figure term="Draw over that span">{formatJoules(answer.night_draw_joules)}<Sub>{formatWattHours(answer.night_draw_joules)}</Sub></Figure>

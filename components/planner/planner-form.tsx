@@ -4,6 +4,8 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { apiFetch, fieldErrors, inFieldUnits } from '@/lib/client/api';
+import { converterNotes } from '@/components/settings/compute-node';
+import { SpecNotes } from '@/components/settings/computed-values';
 import { ChargerCautions } from './charger-cautions';
 import { PlannerAnswer } from './planner-answer';
 import { ALL_FIELDS, CHARGER_FIELDS, FIELD_GROUPS, plannerBodyFromValues, SITE_FIELDS, type PlannerField } from './planner-fields';
@@ -26,6 +28,7 @@ export function PlannerForm({ sites }: { sites: PlannerSite[] }) {
   const [answer, setAnswer] = useState<{ reply: PlannerReply; cutoffVolts: number; timeZone: string } | null>(null);
   const [busy, setBusy] = useState(false);
   const site = sites.find((s) => s.id === siteId) ?? null;
+  const notes = converterNotes((plannerBodyFromValues({ values, date }) as { converter?: unknown }).converter);
 
   function pickSite(id: string) {
     const chosen = sites.find((s) => s.id === Number(id)) ?? null;
@@ -67,6 +70,7 @@ export function PlannerForm({ sites }: { sites: PlannerSite[] }) {
           <fieldset key={g.title} className="min-w-0 rounded-xl border border-dusk-700 bg-dusk-900 p-4">
             <legend className="px-1 font-bold">{g.title}</legend>
             <div className="grid gap-3 sm:grid-cols-2">{g.fields.map(input)}</div>
+            {g.fields.some((f) => f.path.startsWith('converter.')) ? <SpecNotes notes={notes} testId="converter-notes" /> : null}
           </fieldset>
         ))}
         <fieldset className="min-w-0 rounded-xl border border-dusk-700 bg-dusk-900 p-4">

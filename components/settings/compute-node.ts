@@ -52,6 +52,22 @@ export function bankNotes(bank: unknown): string[] {
   return notes;
 }
 
+/**
+ * Typical low-voltage boost parts have their output set between about 1.8 and 4 V, 3.3 V being
+ * the usual choice (common practice; DESIGN.md §1). Outside that range the part is unusual
+ * enough that its efficiency and current limit should come from its own datasheet.
+ */
+export const USUAL_OUTPUT_VOLTS = { min: 1.8, max: 4 } as const;
+
+/** Converter values the server accepts but a practitioner would look at twice. */
+export function converterNotes(converter: unknown): string[] {
+  const c = converterSchema.safeParse(converter);
+  if (!c.success) return [];
+  const out = c.data.output_volts;
+  if (out >= USUAL_OUTPUT_VOLTS.min && out <= USUAL_OUTPUT_VOLTS.max) return [];
+  return [`An output of ${out} V is outside the usual ${USUAL_OUTPUT_VOLTS.min}–${USUAL_OUTPUT_VOLTS.max} V of low-voltage boost parts: take its efficiency and input current limit from that part's datasheet.`];
+}
+
 export function computeLoadFigures(body: { bank?: unknown; converter?: unknown; load?: unknown }): LoadFigures | null {
   const b = bankSchema.safeParse(body.bank);
   const c = converterSchema.safeParse(body.converter);

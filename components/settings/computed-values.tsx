@@ -24,16 +24,12 @@ export function BankFiguresPanel({ figures, notes = [], heading = 'Computed as y
           <Figure label="Bank leakage" value={formatAmps(figures.leakageAmps)} testId="computed-leakage" />
         </dl>
       ) : <p className="mt-2 text-sm text-ink-muted">Complete the bank inputs to see its figures.</p>}
-      {notes.length ? (
-        <ul className="mt-2 space-y-1 border-t border-dusk-700 pt-2 text-sm text-hazard" data-testid="bank-notes">
-          {notes.map((n) => <li key={n}>{n}</li>)}
-        </ul>
-      ) : null}
+      <SpecNotes notes={notes} testId="bank-notes" />
     </section>
   );
 }
 
-export function LoadFiguresPanel({ figures, heading = 'Computed as you type' }: { figures: LoadFigures | null; heading?: string }) {
+export function LoadFiguresPanel({ figures, notes = [], heading = 'Computed as you type' }: { figures: LoadFigures | null; notes?: string[]; heading?: string }) {
   return (
     <section aria-label="Load, computed" aria-live="polite" className="rounded-lg border border-ember/40 bg-dusk-950 p-3" data-testid="load-figures">
       <h3 className="text-xs font-bold uppercase tracking-wider text-ember">{heading}</h3>
@@ -48,7 +44,18 @@ export function LoadFiguresPanel({ figures, heading = 'Computed as you type' }: 
       {figures && !figures.burstReachable ? (
         <p className="mt-2 text-sm text-hazard" role="status">Even a full bank cannot finish one burst: the terminal voltage falls below the cutoff or the input current exceeds the limit.</p>
       ) : null}
+      <SpecNotes notes={notes} testId="converter-notes" />
     </section>
+  );
+}
+
+/** Values the server accepts but worth a second look, under the figures they concern. */
+export function SpecNotes({ notes, testId }: { notes: string[]; testId: string }) {
+  if (!notes.length) return null;
+  return (
+    <ul className="mt-2 space-y-1 border-t border-dusk-700 pt-2 text-sm text-hazard" data-testid={testId}>
+      {notes.map((n) => <li key={n}>{n}</li>)}
+    </ul>
   );
 }
 

@@ -7,7 +7,7 @@ import { Field } from '@/components/ui/field';
 import { apiFetch, fieldErrors, inFieldUnits } from '@/lib/client/api';
 import type { NodeBody } from '@/lib/schemas/node';
 import { BankCaution } from './bank-caution';
-import { bankNotes, computeBankFigures, computeLoadFigures } from './compute-node';
+import { bankNotes, computeBankFigures, converterNotes, computeLoadFigures } from './compute-node';
 import { BankFiguresPanel, LoadFiguresPanel } from './computed-values';
 import { EfficiencyInput } from './efficiency-input';
 import { BANK_INPUTS, bodyFromForm, CONVERTER_INPUTS, formFromBody, LOAD_INPUTS, OTHER_INPUTS } from './node-fields';
@@ -78,7 +78,7 @@ export function NodeForm({ nodeId, initial, sites }: { nodeId?: number; initial:
         <div className="grid gap-3 sm:grid-cols-2"><NumberInputs inputs={BANK_INPUTS} values={values} errors={errors} onChange={set} /></div>
       </Section>
 
-      <Section title="Converter and load" aside={<LoadFiguresPanel figures={loadFigures} />}>
+      <Section title="Converter and load" aside={<LoadFiguresPanel figures={loadFigures} notes={converterNotes(body.converter)} />}>
         <div className="grid gap-3 sm:grid-cols-2">
           <NumberInputs inputs={CONVERTER_INPUTS} values={values} errors={errors} onChange={set} />
           <EfficiencyInput value={efficiency} onChange={setEfficiency} errors={errors} />

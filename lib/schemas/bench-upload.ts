@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { pointersFromZod, problems, type InvalidParam } from '../errors';
+import { pointersFromZod, ProblemError, problems, type InvalidParam } from '../errors';
 import { invalidFromZod, MAX_BODY_BYTES, samplesFromCsv } from './bench';
 
 /**
@@ -43,13 +43,23 @@ export async function readBenchForm(request: Request): Promise<FormData> {
 
 /**
  * The form's fields (already parsed by the caller's schema) and its CSV file, naming every
- * missing piece at once: the fields and the file.
+ * problem at once: the fields, a missing file and the file's bad lines, so one upload shows all
+ * there is to fix.
  */
 export async function fieldsAndSamples<T>(form: FormData, fields: z.ZodSafeParseResult<T>, missingFileDetail: string): Promise<{ fields: T; samples: [number, number][] }> {
   const file = form.get('file');
   const bad: InvalidParam[] = fields.success ? [] : pointersFromZod(fields.error);
+  let samples: [number, number][] | null = null;
   if (!file || typeof file === 'string') bad.push({ pointer: '/file', detail: missingFileDetail });
-  if (bad.length || !fields.success || !file || typeof file === 'string') throw problems.invalid(bad);
-  if (file.size > MAX_BODY_BYTES) throw benchTooLarge();
-  return { fields: fields.data, samples: samplesFromCsv(await file.text()) };
+  else {
+    if (file.size > MAX_BODY_BYTES) throw benchTooLarge();
+    try {
+      samples = samplesFromCsv(await file.text());
+    } catch (error) {
+      if (!(error instanceof ProblemError) || !error.extra.errors) throw error;
+      bad.push(...error.extra.errors);
+    }
+  }
+  if (bad.length || !fields.success || !samples) throw problems.invalid(bad);
+  return { fields: fields.data, samples };
 }

@@ -1,4 +1,4 @@
-import { formatInTimeZone } from '../format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '../format/time';
 import type { NightRowWire } from './wire';
 
 /**
@@ -45,7 +45,7 @@ export const NIGHTS_CSV_HEADER = [
 
 export function nightsCsv({ nights, timeZone }: { nights: NightRowWire[]; timeZone: string }): string {
   const iso = (s: number | null) => (s === null ? null : new Date(s * 1000).toISOString());
-  const local = (s: number) => formatInTimeZone(new Date(s * 1000), timeZone, 'yyyy-MM-dd HH:mm');
+  const local = (s: number) => formatInTimeZone(new Date(s * 1000), timeZone, TIME_PATTERNS.file);
   const fixed = (x: number | null, digits: number) => (x === null ? null : Number(x.toFixed(digits)));
   let out = csvLine(NIGHTS_CSV_HEADER);
   for (const n of nights) {

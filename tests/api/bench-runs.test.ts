@@ -98,6 +98,13 @@ describe('bench runs', () => {
     expect(short.status).toBe(422);
     expect(short.body.errors[0].pointer).toBe('/file');
     expect(short.body.errors[0].detail).toContain('40 %');
+    // A bad field and bad lines in the file are named together, so one upload shows all to fix.
+    let both = s.agent.post('/api/v1/bench/runs').set('origin', s.origin);
+    for (const [name, value] of Object.entries({ ...fields('A5'), current_amps: '-1' })) both = both.field(name, value);
+    const mixed = await both.attach('file', Buffer.from('seconds,volts\n0,2.7\n1,abc\n2,2.6\n3;\n'), { filename: 'A5.csv', contentType: 'text/csv' });
+    expect(mixed.status).toBe(422);
+    const named = mixed.body.errors.map((e: { pointer: string; line?: number }) => `${e.pointer}${e.line ? `:${e.line}` : ''}`);
+    expect(named).toEqual(expect.arrayContaining(['/current_amps', '/file:3', '/file:5']));
     // Nothing stored for the refused uploads.
     const listed = (await s.agent.get('/api/v1/bench/runs')).body.batches.find((b: { batch_label: string }) => b.batch_label === batch);
     expect(listed.cells).toHaveLength(3);

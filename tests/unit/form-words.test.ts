@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { bankNotes } from '@/components/settings/compute-node';
+import { bankNotes, converterNotes } from '@/components/settings/compute-node';
 import { bodyFromForm, formFromBody, NEW_NODE } from '@/components/settings/node-fields';
 import { inFieldUnits } from '@/lib/client/api';
 import { pointersFromZod } from '@/lib/errors';
@@ -49,6 +49,18 @@ describe('bank notes beside the node form', () => {
     expect(bankNotes({ ...bank, cell_rated_volts: 3.8 })).toEqual([expect.stringMatching(/lithium-ion capacitor/)]);
     expect(bankNotes({ ...bank, cell_esr_ohms: 0 })).toEqual([expect.stringMatching(/ESR of 0 Ω/)]);
     expect(bankNotes({ ...bank, cell_rated_volts: 'x' })).toEqual([]);
+  });
+});
+
+describe('converter notes beside the node form and the planner', () => {
+  const converter = { start_volts: 0.9, cutoff_volts: 0.5, output_volts: 3.3, efficiency: 0.85, input_limit_amps: 1.5 };
+  it('outputs inside the usual 1.8–4 V of low-voltage boost parts get none (common practice, DESIGN.md §1)', () => {
+    for (const output_volts of [1.8, 3.3, 4]) expect(converterNotes({ ...converter, output_volts })).toEqual([]);
+  });
+  it('an output below or above that range is pointed out with its value', () => {
+    expect(converterNotes({ ...converter, output_volts: 1.2 })).toEqual([expect.stringMatching(/output of 1\.2 V is outside the usual 1\.8–4 V/)]);
+    expect(converterNotes({ ...converter, output_volts: 5 })).toEqual([expect.stringMatching(/output of 5 V/)]);
+    expect(converterNotes({ ...converter, output_volts: -1 })).toEqual([]);
   });
 });
 

@@ -7,7 +7,7 @@ import { currentMember } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
 import { listMembersOfOrg } from '@/lib/db/queries/people';
 import { listInvitations } from '@/lib/db/queries/team';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 
 export const metadata: Metadata = { title: 'Team' };
 
@@ -33,7 +33,7 @@ export default async function TeamPage() {
             <h2 className="mt-8 font-bold">Open invitations</h2>
             <ul className="mt-2 text-sm text-ink-muted" aria-label="Open invitations">
               {invitations.map((i: { id: number; email: string; role: string; expiresAt: Date }) => (
-                <InvitationRow key={i.id} invitation={{ id: i.id, email: i.email, role: i.role }} until={formatInTimeZone(new Date(i.expiresAt), 'UTC', 'd MMM yyyy HH:mm')} />
+                <InvitationRow key={i.id} invitation={{ id: i.id, email: i.email, role: i.role }} until={formatInTimeZone(new Date(i.expiresAt), 'UTC', TIME_PATTERNS.record)} />
               ))}
             </ul>
           </>
