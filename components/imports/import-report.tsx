@@ -1,10 +1,15 @@
 import type { ImportReport as StoredImportReport } from '@/lib/ingest/import-csv';
+import { importReason, importWord } from '@/lib/ingest/import-outcome';
 
 /** The server's import report; a stored import may also still be running. */
 export type ImportSummary = Omit<StoredImportReport, 'status'> & { status: StoredImportReport['status'] | 'running' };
 
+const HEADLINES = { 'nothing imported': 'Nothing imported', failed: 'The import stopped', 'nothing new': 'Nothing new' } as const;
+
 /** Counts first, then the rejected lines with their reasons (the first 200 are kept). */
 export function ImportReport({ report, testId = 'import-report' }: { report: ImportSummary; testId?: string }) {
+  const word = importWord(report);
+  const reason = report.reason ?? importReason(report);
   const counts = [
     ['Lines', report.lines, 'lines'],
     ['Accepted', report.accepted, 'accepted'],
@@ -21,7 +26,11 @@ export function ImportReport({ report, testId = 'import-report' }: { report: Imp
           </div>
         ))}
       </dl>
-      {report.status === 'failed' ? <p className="mt-2 text-sm font-bold text-hazard">The import stopped: see the reason below.</p> : null}
+      {word === 'nothing imported' || word === 'failed' || word === 'nothing new' ? (
+        <p className={`mt-2 text-sm ${word === 'nothing new' ? 'text-ink-muted' : 'font-bold text-hazard'}`} data-testid="import-outcome" data-word={word}>
+          {HEADLINES[word]}{reason ? `: ${reason}` : '.'}
+        </p>
+      ) : null}
       {report.rejections.length ? (
         <details className="mt-3" open={report.rejections.length <= 20}>
           <summary className="cursor-pointer text-sm font-bold">Rejected lines{report.rejected > report.rejections.length ? ` (first ${report.rejections.length} of ${report.rejected})` : ''}</summary>

@@ -4,6 +4,7 @@ import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import type { Problem } from '@/lib/client/api';
+import { IMPORT_OVER_RATING_FRACTION } from '@/lib/ingest/import-bank-check';
 import { ImportReport, type ImportSummary } from './import-report';
 
 /** Uploads one CSV log (multipart `file`) and shows its report; a failed import still has one. */
@@ -27,8 +28,9 @@ export function ImportUpload({ nodeId }: { nodeId: number }) {
       if (res.ok) setReport(body as ImportSummary);
       else {
         const problem = (body ?? { title: res.statusText }) as Problem & { import?: ImportSummary };
+        // A failed import's report carries its reason in its headline: not said twice.
         if (problem.import) setReport(problem.import);
-        setError(problem.errors?.map((e) => e.detail).join(' ') || problem.detail || problem.title);
+        else setError(problem.errors?.map((e) => e.detail).join(' ') || problem.detail || problem.title);
       }
       router.refresh();
     } catch {
@@ -41,7 +43,7 @@ export function ImportUpload({ nodeId }: { nodeId: number }) {
   return (
     <form onSubmit={onSubmit} className="flex flex-col gap-3 rounded-xl border border-dusk-700 bg-dusk-900 p-4" data-testid="import-form">
       <h2 className="font-bold">Upload a CSV log</h2>
-      <p className="text-sm text-ink-muted">A header line naming the columns: <code className="figures">t,v</code> and optionally <code className="figures">seq,vp,temp,rssi</code>. Times as RFC 3339 or Unix seconds. Lines already stored count as duplicates, so a file can be sent again safely.</p>
+      <p className="text-sm text-ink-muted">A header line naming the columns: <code className="figures">t,v</code> and optionally <code className="figures">seq,vp,temp,rssi</code>. Commas between columns and a decimal point in numbers (<code className="figures">4.80</code>). Times as RFC 3339 or Unix seconds. Lines with bank volts below 0 V or more than {Math.round(IMPORT_OVER_RATING_FRACTION * 100)} % above the bank&apos;s rating are refused. Lines already stored count as duplicates, so a file can be sent again safely.</p>
       <div className="flex flex-col gap-1.5">
         <label htmlFor="import-file" className="text-sm font-bold">CSV file</label>
         <input id="import-file" name="file" type="file" accept=".csv,text/csv,text/plain" className="text-sm file:mr-3 file:rounded-md file:border file:border-dusk-600 file:bg-dusk-800 file:px-3 file:py-1.5 file:text-ink" />

@@ -7,6 +7,8 @@ import { Field } from '@/components/ui/field';
 import { apiFetch, fieldErrors } from '@/lib/client/api';
 import type { SiteBody } from '@/lib/schemas/site';
 import { RechargePreview } from './recharge-preview';
+import { ZoneField } from './zone-field';
+import { defaultSiteZone } from './zone-offset';
 
 const num = (t: string) => (t.trim() === '' ? null : Number(t));
 
@@ -21,12 +23,10 @@ export function SiteForm({ siteId, initial }: { siteId?: number; initial: SiteBo
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ text: string; bad: boolean } | null>(null);
   const [busy, setBusy] = useState(false);
-  // The browser's own zone list, after mount (the server's may differ and would not hydrate).
-  const [zones, setZones] = useState<string[]>([]);
   useEffect(() => {
-    setZones(Intl.supportedValuesOf('timeZone'));
-    // A new site starts in the browser's own zone, usually the right one in the field.
-    if (!initial) setV((old) => (old.time_zone ? old : { ...old, time_zone: Intl.DateTimeFormat().resolvedOptions().timeZone }));
+    // A new site starts in the browser's own zone, usually the right one in the field (UTC if
+    // the browser names none we know); after mount, since the server's zone is not the browser's.
+    if (!initial) setV((old) => (old.time_zone ? old : { ...old, time_zone: defaultSiteZone(Intl.DateTimeFormat().resolvedOptions().timeZone) }));
   }, [initial]);
   const set = (key: keyof typeof v) => (e: { target: { value: string } }) => setV((old) => ({ ...old, [key]: e.target.value }));
 
@@ -54,8 +54,7 @@ export function SiteForm({ siteId, initial }: { siteId?: number; initial: SiteBo
         <Field id="site-lat" label="Latitude (°)" hint="North positive, e.g. 43.412" inputMode="decimal" value={v.lat} onChange={set('lat')} error={errors.lat} />
         <Field id="site-lon" label="Longitude (°)" hint="East positive, e.g. −117.236" inputMode="decimal" value={v.lon} onChange={set('lon')} error={errors.lon} />
       </div>
-      <Field id="site-zone" label="Time zone" hint="IANA name; times on every page are shown in it." list="site-zone-list" value={v.time_zone} onChange={set('time_zone')} error={errors.time_zone} autoComplete="off" />
-      <datalist id="site-zone-list">{zones.map((z) => <option key={z} value={z} />)}</datalist>
+      <ZoneField value={v.time_zone} onChange={set('time_zone')} error={errors.time_zone} />
       <Field id="site-elevation" label="Recharge elevation (°)" inputMode="decimal" value={v.recharge_elevation_deg} onChange={set('recharge_elevation_deg')} error={errors.recharge_elevation_deg}
         hint="Sun elevation above which the panel gives net charge. −0.833° is standard sunrise; a small panel gives net charge only a few degrees above, often 3° to 6° (common practice: measure yours). New sites start at 3°." />
       <RechargePreview lat={num(v.lat) ?? NaN} lon={num(v.lon) ?? NaN} elevationDeg={Number(v.recharge_elevation_deg)} timeZone={v.time_zone} />

@@ -28,3 +28,15 @@ export function csvLineToObject(fields: string[], line: string): Record<string, 
   });
   return out;
 }
+
+/**
+ * Words for a line that seems to use another separator than the comma (a spreadsheet saved in
+ * a locale with a decimal comma writes `t;v` and `4,80`), or null. No cell of the contract can
+ * hold a semicolon or a tab, so either one in a line means a different separator.
+ * Only the import uses this; the device contract's CSV messages are unchanged.
+ */
+export function separatorHint(line: string): string | null {
+  const name = line.includes(';') ? 'semicolons (;)' : line.includes('\t') && !line.includes(',') ? 'tabs' : null;
+  if (!name) return null;
+  return `The file seems to use ${name} between columns. Save it with commas between columns and a decimal point in numbers (4.80, not 4,80).`;
+}

@@ -26,7 +26,7 @@ export const siteBody = z.object({
   name: z.string().trim().min(1, 'Give the site a name.').max(200).regex(/^[^\r\n\t]*$/, 'Use one line.'),
   lat: degrees.min(-90, 'Latitude is between −90° and 90°.').max(90, 'Latitude is between −90° and 90°.'),
   lon: degrees.min(-180, 'Longitude is between −180° and 180°.').max(180, 'Longitude is between −180° and 180°.'),
-  time_zone: z.string().trim().min(1, 'Choose a time zone.').max(64).refine(isKnownTimeZone, 'Not a known time zone: use an IANA name such as Europe/Berlin.'),
+  time_zone: z.string().trim().min(1, { message: 'Choose a time zone.', abort: true }).max(64, { abort: true }).refine(isKnownTimeZone, 'Not a known time zone: use an IANA name such as Europe/Berlin.'),
   // The same range as the model's site input (lib/schemas/model.ts), in plainer words.
   recharge_elevation_deg: degrees.min(-18, 'Use −18° (astronomical dusk) to 60°.').max(60, 'Use −18° (astronomical dusk) to 60°.'),
   notes: z.string().max(4000).default(''),

@@ -1,7 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { NODE_STATES } from '@/lib/config/node-states';
 import { closeDb, db } from '@/lib/db/knex';
+import { listLiveNodes } from '@/lib/db/queries/sites';
 import { createTestNode, deployer } from './helpers/fleet';
 import { signedIn } from './helpers/session';
+import { appUrl } from './helpers/stack';
 
 afterAll(closeDb);
 
@@ -108,5 +111,52 @@ describe('sites: create, read, update, delete', () => {
     const some = list.body.sites[0];
     expect((await viewer.agent.put(`/api/v1/sites/${some.id}`).set('origin', viewer.origin).send(body())).status).toBe(403);
     expect((await viewer.agent.delete(`/api/v1/sites/${some.id}`).set('origin', viewer.origin)).status).toBe(403);
+  });
+
+  it('accepts real IANA zones, UTC among them, and refuses others with one error on the zone', async () => {
+    // Real IANA names (IANA tz database, from memory), a three-part one and a quarter-hour one among them.
+    for (const zone of ['UTC', 'America/Argentina/Buenos_Aires', 'Asia/Kathmandu', 'Pacific/Chatham']) {
+      const res = await post(dep, body({ time_zone: zone }));
+      expect(res.status, zone).toBe(201);
+      expect(res.body.time_zone, zone).toBe(zone);
+    }
+    // An offset typed as text, a made-up city and an empty field are not IANA zones.
+    for (const [zone, detail] of [['UTC-8', /^Not a known time zone/], ['+08:00', /^Not a known time zone/], ['Europe/Atlantis', /^Not a known time zone/], ['', /^Choose a time zone\.$/]] as const) {
+      const res = await post(dep, body({ time_zone: zone }));
+      expect(res.status, zone).toBe(422);
+      expect(res.body.errors.map((e: { pointer: string }) => e.pointer), zone).toEqual(['/time_zone']);
+      expect(res.body.errors[0].detail, zone).toMatch(detail);
+    }
+  });
+});
+
+describe('a site’s live nodes (listLiveNodes, the site page’s list)', () => {
+  it('lists the site’s nodes that are not retired, with state, last reading and volts, only for its organization', async () => {
+    const site = (await post(dep, body())).body;
+    const read = await createTestNode('live-read', { site_id: site.id });
+    const quiet = await createTestNode('live-quiet', { site_id: site.id });
+    const gone = await createTestNode('live-gone', { site_id: site.id });
+    expect((await dep.agent.delete(`/api/v1/nodes/${gone.nodeId}`).set('origin', dep.origin)).status).toBe(204);
+    const rated = read.body.bank.cells_series * read.body.bank.cell_rated_volts;
+    const volts = Number((rated * 0.8).toFixed(3));
+    const res = await fetch(`${appUrl()}/api/v1/readings`, {
+      method: 'POST', headers: { authorization: `Bearer ${read.token}`, 'content-type': 'application/json' }, body: JSON.stringify({ v: volts }),
+    });
+    expect(res.status).toBe(200);
+
+    const { org_id: orgId } = await db()('sites').where({ id: site.id }).first('org_id');
+    const live = await listLiveNodes(orgId, site.id);
+    expect(live.map((n) => n.id).sort((a, b) => a - b)).toEqual([read.nodeId, quiet.nodeId].sort((a, b) => a - b));
+    const withReading = live.find((n) => n.id === read.nodeId)!;
+    expect(withReading.name).toBe(read.body.name);
+    expect(NODE_STATES).toContain(withReading.state);
+    expect(withReading.volts).toBeCloseTo(volts, 6); // no calibration on test nodes
+    expect(withReading.max_volts).toBeCloseTo(rated, 9);
+    expect(Date.now() - Date.parse(withReading.last_reading_at!)).toBeLessThan(5 * 60_000);
+    expect(live.find((n) => n.id === quiet.nodeId)).toMatchObject({ state: 'new', volts: null, last_reading_at: null });
+
+    // The same site asked for under another organization: nothing, like a missing site.
+    const other = await db()('organizations').whereNot({ id: orgId }).first('id');
+    expect(await listLiveNodes(other.id, site.id)).toEqual([]);
   });
 });

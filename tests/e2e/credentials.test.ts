@@ -22,6 +22,16 @@ describe('device credentials in Chromium', () => {
     await page.goto(`/nodes/${nodeId}/credentials`);
     const rowsBefore = await page.getByTestId('credential-row').count();
 
+    // A blank label is refused by the field, and nothing is sent.
+    const posts: string[] = [];
+    page.on('request', (r) => { if (r.method() === 'POST' && r.url().includes('/credentials')) posts.push(r.url()); });
+    await page.getByLabel('Label').fill('   ');
+    await page.getByTestId('credential-create').click();
+    await expect(page.locator('#credential-label-error').textContent()).resolves.toContain('Give the credential a label');
+    await expect(page.getByLabel('Label').getAttribute('aria-invalid')).resolves.toBe('true');
+    expect(posts).toEqual([]);
+    expect(await page.getByTestId('token-once').count()).toBe(0);
+
     const label = `field unit ${Date.now()}`;
     await page.getByLabel('Label').fill(label);
     await page.getByTestId('credential-create').click();

@@ -35,6 +35,16 @@ describe('CSV import and field visits in Chromium', () => {
     await expect(page.getByTestId('import-row').first().textContent()).resolves.toContain('night-log.csv');
     await screenshot(page, 'import-report');
 
+    // A file saved with semicolons and decimal commas: nothing imported, and the reason says why.
+    await page.getByLabel('CSV file').setInputFiles({ name: 'comma-decimals.csv', mimeType: 'text/csv', buffer: Buffer.from(`t;v\n${t(3)};4,80\n`) });
+    await page.getByTestId('import-submit').click();
+    const outcome = page.getByTestId('import-report').getByTestId('import-outcome');
+    await outcome.waitFor();
+    await expect(outcome.getAttribute('data-word')).resolves.toBe('nothing imported');
+    await expect(outcome.textContent()).resolves.toMatch(/^Nothing imported: The file seems to use semicolons.*decimal point/);
+    await expect.poll(() => page.getByTestId('import-row').first().getByTestId('import-row-status').textContent()).toBe('nothing imported');
+    await screenshot(page, 'import-nothing-imported');
+
     const phone = await newPage(browser, { width: 390, height: 844 });
     await signInThroughForm(phone.page, 'deployer@larkspur.example');
     await phone.page.goto(`/nodes/${nodeId}/imports`);

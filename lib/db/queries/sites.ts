@@ -2,6 +2,8 @@ import type { Knex } from 'knex';
 import { db } from '../knex';
 import { problems } from '../../errors';
 import type { SiteBody, SiteWire } from '../../schemas/site';
+import type { NodeState } from '../../config/node-states';
+import { compareRisk } from './fleet';
 import { getSiteInOrg } from './nodes';
 
 /** Sites of an organization. Another organization's site is "not found", like a missing one. */
@@ -23,6 +25,41 @@ export async function getSiteWire(orgId: number, siteId: number): Promise<SiteWi
   const row = await db()('sites as s').where({ 's.id': siteId, 's.org_id': orgId }).first('s.*', liveNodes(db()));
   if (!row) throw problems.notFound('The site');
   return siteToWire(row);
+}
+
+/** A live node of a site as the site page lists it: its state and its latest reading. */
+export interface SiteLiveNode {
+  id: number;
+  name: string;
+  purpose: string;
+  state: NodeState;
+  margin: number | null;
+  /** Calibrated bank volts at the last reading (null before the first). */
+  volts: number | null;
+  /** The bank's rated maximum, ns·Vr, for the over-voltage caution. */
+  max_volts: number;
+  last_reading_at: string | null;
+}
+
+/** The site's live (not retired) nodes with their status, most at risk first as on the fleet page. */
+export async function listLiveNodes(orgId: number, siteId: number): Promise<SiteLiveNode[]> {
+  const rows = await db()('nodes as n')
+    .leftJoin('node_status as st', 'st.node_id', 'n.id')
+    .where({ 'n.org_id': orgId, 'n.site_id': siteId })
+    .whereNull('n.deleted_at')
+    .select('n.id', 'n.name', 'n.purpose', 'n.cells_series', 'n.cell_rated_volts', 'st.state', 'st.margin', 'st.volts', 'st.last_reading_at');
+  return rows
+    .map((r) => ({
+      id: Number(r.id),
+      name: String(r.name),
+      purpose: (r.purpose as string | null) ?? '',
+      state: (r.state ?? 'new') as NodeState,
+      margin: r.margin == null ? null : Number(r.margin),
+      volts: r.volts == null ? null : Number(r.volts),
+      max_volts: Number(r.cells_series) * Number(r.cell_rated_volts),
+      last_reading_at: r.last_reading_at ? new Date(r.last_reading_at).toISOString() : null,
+    }))
+    .sort(compareRisk);
 }
 
 /**

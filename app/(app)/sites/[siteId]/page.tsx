@@ -3,8 +3,10 @@ import Link from 'next/link';
 import { DeleteSite } from '@/components/sites/delete-site';
 import { fmtDeg, fmtLat, fmtLon } from '@/components/sites/site-card';
 import { SiteForm } from '@/components/sites/site-form';
+import { SiteLiveNodes } from '@/components/sites/site-live-nodes';
+import { describeZoneNow } from '@/components/sites/zone-offset';
 import { can } from '@/lib/auth/roles';
-import { listRetiredNodes } from '@/lib/db/queries/sites';
+import { listLiveNodes, listRetiredNodes } from '@/lib/db/queries/sites';
 import { formatInTimeZone } from '@/lib/format/time';
 import { loadSitePage } from './load-site';
 
@@ -20,7 +22,8 @@ function exportHref(nodeId: number, firstIso: string, lastIso: string): string {
 export default async function SitePage({ params }: { params: Promise<{ siteId: string }> }) {
   const { member, site } = await loadSitePage((await params).siteId);
   const { id: _id, live_nodes: nodes, ...body } = site;
-  const retired = await listRetiredNodes(member.orgId, site.id);
+  const [live, retired] = await Promise.all([listLiveNodes(member.orgId, site.id), listRetiredNodes(member.orgId, site.id)]);
+  const now = new Date();
   const local = (iso: string) => formatInTimeZone(new Date(iso), site.time_zone);
   return (
     <section className="flex flex-col gap-4">
@@ -29,6 +32,7 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
         <h1 className="mt-1 text-2xl font-bold [overflow-wrap:anywhere]" data-testid="site-name">{site.name}</h1>
         <p className="text-sm text-ink-muted">{nodes} node{nodes === 1 ? '' : 's'} on this site.</p>
       </div>
+      <SiteLiveNodes nodes={live} timeZone={site.time_zone} now={now} canAddNodes={can(member.role, 'nodes:write')} />
       {can(member.role, 'sites:write') ? (
         <>
           <SiteForm siteId={site.id} initial={body} />
@@ -38,7 +42,7 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
         <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-4 gap-y-1 rounded-xl border border-dusk-700 bg-dusk-900 p-4 text-sm" data-testid="site-readonly">
           <dt className="text-ink-faint">Latitude</dt><dd className="figures">{fmtLat(site.lat)}</dd>
           <dt className="text-ink-faint">Longitude</dt><dd className="figures">{fmtLon(site.lon)}</dd>
-          <dt className="text-ink-faint">Time zone</dt><dd>{site.time_zone}</dd>
+          <dt className="text-ink-faint">Time zone</dt><dd>{site.time_zone} <span className="figures text-ink-muted" data-testid="site-zone-offset">({describeZoneNow(site.time_zone, now).text})</span></dd>
           <dt className="text-ink-faint">Recharge elevation</dt><dd className="figures">{fmtDeg(site.recharge_elevation_deg)}</dd>
           <dt className="text-ink-faint">Notes</dt><dd className="whitespace-pre-line">{site.notes || '—'}</dd>
         </dl>

@@ -1,9 +1,8 @@
-import { z } from 'zod';
 import { createCredential, listCredentials } from '@/lib/db/queries/credentials';
 import { idParam, memberRoute } from '@/lib/http/route';
+import { createCredentialBody as createBody } from '@/lib/schemas/credential';
 
 type P = { nodeId: string };
-const createBody = z.object({ label: z.string().trim().max(120).regex(/^[^\r\n]*$/, 'Use one line.').default('') }).strict();
 
 export const GET = memberRoute<undefined, P>({ permission: 'fleet:read' }, async ({ member, params }) => {
   return Response.json({ credentials: await listCredentials(member.orgId, idParam(params.nodeId, 'The node')) });

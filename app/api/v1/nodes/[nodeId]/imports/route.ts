@@ -15,12 +15,14 @@ export const GET = memberRoute<undefined, P>({ permission: 'fleet:read' }, async
 // multipart/form-data with one CSV file (header line t,v[,seq,vp,temp,rssi]); streamed.
 export const POST = memberRoute<undefined, P>({ permission: 'imports:create' }, async ({ member, params, request }) => {
   const nodeId = idParam(params.nodeId, 'The node');
-  await getNodeInOrg(member.orgId, nodeId);
+  const node = await getNodeInOrg(member.orgId, nodeId);
   const report = await withUploadedFile(request, { maxBytes: 200 * 1_048_576 }, ({ filename, stream }) =>
-    importCsvStream({ orgId: member.orgId, nodeId, userId: member.userId, filename, stream }),
+    importCsvStream({ orgId: member.orgId, nodeId, userId: member.userId, filename, stream, bank: node }),
   );
+  // Failed includes "nothing imported": every line refused, so nothing was stored.
   if (report.status === 'failed') {
-    throw new ProblemError(422, 'Import failed', report.rejections[0]?.reason ?? 'The file could not be imported.', { import: report });
+    const title = report.accepted === 0 && report.duplicates === 0 ? 'Nothing imported' : 'Import failed';
+    throw new ProblemError(422, title, report.reason ?? 'The file could not be imported.', { import: report });
   }
   return Response.json(report, { status: 201 });
 });
