@@ -1,13 +1,14 @@
 import type { Knex } from 'knex';
 import { drawScaleFrom, modelBank } from '../energy';
 import type { PassNode } from '../db/queries/alerts';
-import { latestReadingAt, lockUnresolvedAlert, insertAlert, readingsBetween, updateAlert, upsertNodeStatus } from '../db/queries/alerts';
+import { latestReadingAt, lockUnresolvedAlert, insertAlert, updateAlert, upsertNodeStatus } from '../db/queries/alerts';
 import { deriveNodeStatus } from '../status/derive-status';
 import { calibratedVolts, modelSpecFromRows } from '../status/node-spec';
 import { assessLatestDay, missedDay } from './day-charge';
 import { stepAlert } from './hysteresis';
 import { ALERT_KINDS, type AlertKind } from './kinds';
 import { measureLatestNight } from './night-draw';
+import { recentSamplesOf } from './night-draw-of';
 import { enqueueAlertMails, type OrgAudience } from './notify';
 import { alertDetail, evaluateAlertRules, type AlertDetail, type Verdicts } from './rules';
 
@@ -26,7 +27,6 @@ export interface NodePassResult {
   mails: number;
 }
 
-const HISTORY_MS = 48 * 3_600_000;
 const RACE_ERRORS = new Set(['ER_DUP_ENTRY', 'ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 const MAX_ATTEMPTS = 3;
 
@@ -34,8 +34,7 @@ export async function evaluatePassNode({ knex, passNode, now }: { knex: Knex; pa
   const { node, site, org } = passNode;
   const spec = modelSpecFromRows(node, site);
   const latest = await latestReadingAt(knex, node.id, now);
-  const recent = await readingsBetween(knex, node.id, new Date(now.getTime() - HISTORY_MS), now);
-  const samples = recent.map((r) => ({ t: r.t, volts: calibratedVolts(node, r.v), ...(r.vp === null ? {} : { panelVolts: r.vp }) }));
+  const samples = await recentSamplesOf({ knex, node, now });
   const night = measureLatestNight({ spec, samples, now });
   const status = deriveNodeStatus({
     spec, now, thresholds: { steady: org.steady, thin: org.thin }, lastAdvisedIntervalSeconds: passNode.lastAdvisedIntervalSeconds,
@@ -93,7 +92,7 @@ async function writeNodePass(opts: {
     const mailFor = (alertId: number, reminder: boolean) =>
       enqueueAlertMails(trx, {
         orgId: org.id, alertId, siteId: site.id, audience: opts.audience, now,
-        mail: { kind, detail, nodeId: node.id, nodeName: node.name, siteName: site.name, timeZone: site.time_zone, appUrl: opts.appUrl, reminder },
+        mail: { kind, detail, nodeId: node.id, nodeName: node.name, siteName: site.name, timeZone: site.time_zone, cutoffVolts: node.cutoff_volts, appUrl: opts.appUrl, reminder },
       });
     if (step.action === 'open') {
       const id = await insertAlert(trx, { orgId: org.id, nodeId: node.id, kind, detail, now });

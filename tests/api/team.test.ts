@@ -2,10 +2,13 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
 import { api } from './helpers/stack';
 import { signIn, signedIn } from './helpers/session';
+import { ROLE_SENTENCE } from '@/lib/auth/role-words';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 
 afterAll(closeDb);
 
 const tokenFrom = (link: string) => link.split('/').pop()!;
+const escapeRegExp = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 
 async function invite(email: string, role: 'owner' | 'deployer' | 'viewer') {
   const owner = await signedIn('owner@larkspur.example');
@@ -27,6 +30,18 @@ describe('invitations', () => {
     const { token } = await invite('once@larkspur.example', 'viewer');
     const mail = await db()('email_outbox').where({ to_address: 'once@larkspur.example', purpose: 'invitation' }).first();
     expect(mail.text_body).toContain(token);
+    // Who invites, where to, which role and what it may do, the expiry, and what to do if unexpected.
+    const inviter = await db()('users').where({ email: 'owner@larkspur.example' }).first('name');
+    const inv = await db()('invitations as i').join('organizations as o', 'o.id', 'i.org_id')
+      .where({ 'i.email': 'once@larkspur.example' }).orderBy('i.id', 'desc').first('i.expires_at', 'o.name as orgName');
+    const org = { name: inv.orgName as string };
+    expect(mail.subject).toContain(`${inviter.name} invited you to ${org.name}`);
+    expect(mail.text_body).toMatch(new RegExp(`Invited by:\\s+${escapeRegExp(inviter.name)} \\(owner@larkspur\\.example\\)`));
+    expect(mail.text_body).toMatch(new RegExp(`Organization:\\s+${escapeRegExp(org.name)}`));
+    expect(mail.text_body).toMatch(/Role offered:\s+viewer/);
+    expect(mail.text_body).toContain(ROLE_SENTENCE.viewer);
+    expect(mail.text_body).toMatch(new RegExp(`Link expires:\\s+${escapeRegExp(formatInTimeZone(new Date(inv.expires_at), 'UTC', TIME_PATTERNS.record))}`));
+    expect(mail.text_body).toMatch(/If you weren't expecting this invitation, ignore this e-mail/);
     expect((await accept(token)).status).toBe(201);
     expect((await accept(token)).status).toBe(404);
     expect((await signIn('once@larkspur.example', 'a long enough passphrase')).ok).toBe(true);

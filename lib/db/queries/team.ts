@@ -4,6 +4,7 @@ import { hashOneTimeToken, newOneTimeToken } from '../../auth/one-time-token';
 import type { Role } from '../../auth/roles';
 import { writeAudit } from '../../audit';
 import { enqueueMail, escapeHtml } from '../../mail/outbox';
+import { buildInvitationMail } from '../../mail/templates/invitation-mail';
 import { problems } from '../../errors';
 import { countOwners, findMembership, normalizeEmail } from './people';
 
@@ -70,14 +71,13 @@ export async function createInvitation(opts: { orgId: number; orgName: string; e
     await trx('invitations').insert({ org_id: opts.orgId, email, role: opts.role, token_sha256: sha256, invited_by: opts.byUserId, expires_at: expiresAt });
     // Someone who already has an account keeps their password: the link only adds the membership.
     const existing = await trx('users').where({ email }).first('id');
-    const action = existing ? 'Accept it here' : 'Set your password here';
-    const htmlAction = existing ? 'Accept the invitation' : 'Set your password';
-    const after = existing ? ' You keep your present password; the organization then appears in the list at the top of every page.' : '';
+    const inviter = await trx('users').where({ id: opts.byUserId }).first('name', 'email');
     await enqueueMail(trx, {
       orgId: opts.orgId, purpose: 'invitation', to: email,
-      subject: `You are invited to ${opts.orgName} on Duskwatch`,
-      text: `You have been invited to join ${opts.orgName} on Duskwatch as ${opts.role}.${after}\n\n${action} (the link works once, for ${INVITATION_DAYS} days):\n${link}\n`,
-      html: `<p>You have been invited to join <strong>${escapeHtml(opts.orgName)}</strong> on Duskwatch as ${opts.role}.${after}</p><p><a href="${escapeHtml(link)}">${htmlAction}</a> (the link works once, for ${INVITATION_DAYS} days).</p>`,
+      ...buildInvitationMail({
+        orgName: opts.orgName, role: opts.role, inviter: { name: inviter?.name ?? '', email: inviter?.email ?? '' },
+        link, expiresAt, validDays: INVITATION_DAYS, existingAccount: Boolean(existing),
+      }),
     });
     await writeAudit({ orgId: opts.orgId, userId: opts.byUserId, action: 'invitation_created', target: email, detail: { role: opts.role } }, trx);
   });

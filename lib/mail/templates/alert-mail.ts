@@ -1,5 +1,7 @@
 import { KIND_INFO, DRAW_ANOMALY_RATIO, overVoltageWords, type AlertKind } from '../../alerts/kinds';
 import type { AlertDetail } from '../../alerts/rules';
+import { stateOfCharge } from '../../energy';
+import { formatPercent } from '../../format/units';
 import { escapeHtml, oneLine } from '../outbox';
 import { formatMargin, formatMilliwatts, htmlList, htmlRows, localTime, nodeLink, textRows } from './parts';
 
@@ -17,6 +19,8 @@ export interface AlertMailInput {
   timeZone: string;
   appUrl: string;
   reminder?: boolean;
+  /** The converter's cutoff: the state of charge is the share of energy between it and full. */
+  cutoffVolts?: number | null;
 }
 
 export function buildAlertMail(input: AlertMailInput): { subject: string; text: string; html: string } {
@@ -33,7 +37,7 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
     ['Site', oneLine(input.siteName)],
     ['State', detail.state],
     ['Night margin', formatMargin(detail.margin)],
-    ['Bank', typeof detail.volts === 'number' ? `${detail.volts.toFixed(2)} V (${Math.round((100 * detail.volts) / detail.max_volts)} % of the rated ${detail.max_volts.toFixed(2)} V)` : 'no reading'],
+    ['Bank', bankWords(detail, input.cutoffVolts)],
     ['Projected brownout', brownout ? `${brownout}${brownoutPassed ? ' (passed, no report since)' : ''}` : 'none before recharge'],
     ['Recharge', recharge ?? 'not within 7 days'],
     ['Last reading', localTime(detail.last_reading_at, timeZone) ?? 'none'],
@@ -66,6 +70,20 @@ export function buildAlertMail(input: AlertMailInput): { subject: string; text: 
     `<p style="color:#666">Times are in the site's zone (${escapeHtml(timeZone)}).</p>`,
   ].join('\n');
   return { subject, text, html };
+}
+
+/**
+ * "4.61 V, state of charge 73 % (of the energy above the 0.50 V cutoff)": the figure and the words
+ * of the node page, never a share of volts. Above the rating the state of charge stops at
+ * 100 % and the rating is said beside it.
+ */
+function bankWords(detail: AlertDetail, cutoffVolts: number | null | undefined): string {
+  if (typeof detail.volts !== 'number') return 'no reading';
+  const volts = `${detail.volts.toFixed(2)} V`;
+  const over = detail.volts > detail.max_volts ? `, over the rated ${detail.max_volts.toFixed(2)} V` : '';
+  if (typeof cutoffVolts !== 'number' || !Number.isFinite(cutoffVolts)) return `${volts}${over || ` (rated ${detail.max_volts.toFixed(2)} V)`}`;
+  const soc = stateOfCharge({ volts: detail.volts, cutoffVolts, maxVolts: detail.max_volts });
+  return `${volts}, state of charge ${formatPercent(soc)} (of the energy above the ${cutoffVolts.toFixed(2)} V cutoff)${over}`;
 }
 
 /** Why, in one sentence: the draw explains a reserve; a quiet node or a bank over its rating has other causes. */

@@ -1,7 +1,7 @@
 import { formatInTimeZone } from '../../format/time';
 import { escapeHtml } from '../outbox';
 
-/** Small formatting pieces shared by the alert and digest mails. */
+/** Small formatting pieces shared by the alert, digest and invitation mails. */
 export const LOCAL_PATTERN = 'EEE d MMM HH:mm';
 
 /** An instant in the site's own zone, e.g. "Thu 19 Nov 23:41 PST"; a bad zone falls back to UTC. */

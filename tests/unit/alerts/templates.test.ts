@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildAlertMail, likelyCause } from '@/lib/mail/templates/alert-mail';
 import { alertLine } from '@/lib/alerts/labels';
 import { alertDetail } from '@/lib/alerts/rules';
-import { MAX_VOLTS, statusWith } from './fixtures';
+import { BANK_FARADS, MAX_VOLTS, spec, statusWith } from './fixtures';
 
 const status = statusWith({ state: 'short', margin: 0.62, volts: 2.1, brownout_at: new Date('2026-11-20T11:41:00Z'), recharge_at: new Date('2026-11-20T15:38:00Z') });
 const detail = alertDetail({ status, thresholds: { steady: 1.5, thin: 1 }, alertOnThin: false, maxVolts: MAX_VOLTS, night: null, day: null, missedDay: null, measuredWatts: null });
@@ -39,9 +39,47 @@ describe('the alert e-mail', () => {
     expect(alertLine('over_voltage', over)).toContain('9.50 V, 176 % of its rated 5.40 V');
     const mail = buildAlertMail({ kind: 'over_voltage', detail: over, nodeId: 7, nodeName: 'N-7', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x' });
     expect(mail.subject).toContain('over-voltage (9.50 V, 176 % of its rated 5.40 V)');
-    expect(mail.text).toMatch(/Bank:\s+9\.50 V \(176 % of the rated 5\.40 V\)/);
+    // The state of charge stops at 100 % above the rating (lib/energy/bank.ts clamps it); the rating is said beside it.
+    expect(mail.text).toMatch(/Bank:\s+9\.50 V, over the rated 5\.40 V/);
+    const withCutoff = buildAlertMail({ kind: 'over_voltage', detail: over, nodeId: 7, nodeName: 'N-7', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x', cutoffVolts: 0.5 });
+    expect(withCutoff.text).toMatch(/Bank:\s+9\.50 V, state of charge 100 % \(of the energy above the 0\.50 V cutoff\), over the rated 5\.40 V/);
     expect(mail.text).toMatch(/Likely cause: a charger that does not regulate/);
     expect(buildAlertMail({ kind: 'reserve_short', detail, nodeId: 1, nodeName: 'N', siteName: 'S', timeZone: 'UTC', appUrl: 'http://x' }).text).toMatch(/Night margin:\s+0\.62×/);
+  });
+});
+
+describe('the bank figure of the alert e-mail', () => {
+  const cutoffVolts = spec.converter.cutoffVolts; // 0.5 V
+  const at = (volts: number, cutoff: number | null = cutoffVolts) => {
+    const d = alertDetail({ status: statusWith({ state: 'thin', margin: 1.2, volts }), thresholds: { steady: 1.5, thin: 1 }, alertOnThin: true, maxVolts: MAX_VOLTS, night: null, day: null, missedDay: null, measuredWatts: null });
+    return buildAlertMail({ kind: 'reserve_thin', detail: d, nodeId: 5, nodeName: 'N-5', siteName: 'Weir', timeZone: 'UTC', appUrl: 'http://x', cutoffVolts: cutoff });
+  };
+
+  it('gives the state of charge by energy, worded as on the node page, beside the volts', () => {
+    // Independent check from E = ½CV² (textbook capacitor energy, DESIGN.md §3): the share of
+    // the energy between the 0.5 V cutoff and the full 5.4 V of the 12.5 F fixture bank.
+    const joules = (v: number) => 0.5 * BANK_FARADS * v * v;
+    const expected = Math.round((100 * (joules(4.61) - joules(0.5))) / (joules(MAX_VOLTS) - joules(0.5)));
+    expect(expected).toBe(73); // (4.61² − 0.5²) / (5.4² − 0.5²) = 21.0021 / 28.91 = 0.7265 (derived here)
+    const mail = at(4.61);
+    expect(mail.text).toMatch(new RegExp(`Bank:\\s+4\\.61 V, state of charge ${expected} % \\(of the energy above the 0\\.50 V cutoff\\)`));
+    expect(mail.html).toContain(`4.61 V, state of charge ${expected} % (of the energy above the 0.50 V cutoff)`);
+    // Never the share of volts: 4.61 / 5.4 = 85 % (derived here).
+    expect(mail.text).not.toContain('85 %');
+    expect(mail.text).not.toMatch(/% of the rated/);
+  });
+
+  it('is 0 % at the cutoff and below it, and half the volts is far less than half the charge', () => {
+    expect(at(0.5).text).toMatch(/state of charge 0 %/);
+    expect(at(0.3).text).toMatch(/state of charge 0 %/);
+    // 2.7 V is half of 5.4 V: (2.7² − 0.5²) / 28.91 = 7.04 / 28.91 = 24 % (derived here from E = ½CV²).
+    expect(at(2.7).text).toMatch(/Bank:\s+2\.70 V, state of charge 24 %/);
+  });
+
+  it('without the cutoff gives the volts and the rating only, never a share of volts', () => {
+    const text = at(4.61, null).text;
+    expect(text).toMatch(/Bank:\s+4\.61 V \(rated 5\.40 V\)/);
+    expect(text).not.toMatch(/%.*rated/);
   });
 });
 
