@@ -1,4 +1,4 @@
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 import { RevokeButton } from './revoke-button';
 
 export interface CredentialRow {
@@ -10,7 +10,7 @@ export interface CredentialRow {
   createdBy: string | null;
 }
 
-const at = (d: Date | string | null, zone: string) => (d ? formatInTimeZone(new Date(d), zone, 'yyyy-MM-dd HH:mm') : null);
+const at = (d: Date | string | null, zone: string) => (d ? formatInTimeZone(new Date(d), zone, TIME_PATTERNS.record) : null);
 
 /** The node's credentials: metadata only (the database never holds a token). Cards, so it reads at 390 px too. */
 export function CredentialList({ nodeId, rows, timeZone, canManage }: { nodeId: number; rows: CredentialRow[]; timeZone: string; canManage: boolean }) {

@@ -1,4 +1,4 @@
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 import { importWord } from '@/lib/ingest/import-outcome';
 import { ImportReport, type ImportSummary } from './import-report';
 
@@ -20,7 +20,7 @@ export function ImportHistory({ rows, timeZone }: { rows: ImportHistoryRow[]; ti
             <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
               <p className="break-all font-bold">{r.filename}</p>
               <p className="text-xs text-ink-muted">
-                <span className="figures">{formatInTimeZone(new Date(r.createdAt), timeZone, 'yyyy-MM-dd HH:mm')}</span>
+                <span className="figures">{formatInTimeZone(new Date(r.createdAt), timeZone, TIME_PATTERNS.record)}</span>
                 {r.uploadedBy ? ` · ${r.uploadedBy}` : ''} · <span className={word === 'failed' || word === 'nothing imported' ? 'text-hazard' : ''} data-testid="import-row-status">{word}</span>
               </p>
             </div>

@@ -2,7 +2,7 @@
 
 import { useEffect, useState } from 'react';
 import { nextRechargeAt } from '@/lib/energy';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 import { isKnownTimeZone } from '@/lib/schemas/site';
 
 /** What the settings mean tonight: the next net-charge moment, computed in the browser. */
@@ -17,7 +17,7 @@ export function RechargePreview({ lat, lon, elevationDeg, timeZone }: { lat: num
   return (
     <p className="rounded-lg border border-tide/50 bg-dusk-950 p-3 text-sm" aria-live="polite" data-testid="recharge-preview">
       Next net charge with these settings:{' '}
-      <strong className="figures text-tide">{at ? formatInTimeZone(at, zone, 'EEE d MMM HH:mm') : 'not within 7 days (polar night)'}</strong>
+      <strong className="figures text-tide">{at ? formatInTimeZone(at, zone, TIME_PATTERNS.event) : 'not within 7 days (polar night)'}</strong>
     </p>
   );
 }

@@ -3,7 +3,7 @@ import { BankValue } from '@/components/fleet/fleet-values';
 import { StateGlyph } from '@/components/state-glyph';
 import { NODE_STATE_INFO } from '@/lib/config/node-states';
 import type { SiteLiveNode } from '@/lib/db/queries/sites';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatNearNow } from '@/lib/format/time';
 import { formatAge } from '@/lib/format/units';
 
 /**
@@ -11,7 +11,7 @@ import { formatAge } from '@/lib/format/units';
  * page, the last reading in the site's zone, and the bank's volts at that reading (with the
  * over-voltage caution the fleet shows).
  */
-export function SiteLiveNodes({ nodes, timeZone, now, canAddNodes }: { nodes: SiteLiveNode[]; timeZone: string; now: Date; canAddNodes: boolean }) {
+export function SiteLiveNodes({ siteId, nodes, timeZone, now, canAddNodes }: { siteId: number; nodes: SiteLiveNode[]; timeZone: string; now: Date; canAddNodes: boolean }) {
   return (
     <section aria-labelledby="live-heading" className="max-w-2xl rounded-xl border border-dusk-700 p-4" data-testid="live-nodes">
       <h2 id="live-heading" className="font-bold">Nodes on this site</h2>
@@ -19,7 +19,7 @@ export function SiteLiveNodes({ nodes, timeZone, now, canAddNodes }: { nodes: Si
         <p className="mt-1 text-sm text-ink-muted" data-testid="live-nodes-empty">
           No nodes stand on this site yet.{' '}
           {canAddNodes ? (
-            <>Add one with <Link href="/nodes/new" className="text-tide underline-offset-2 hover:underline" data-testid="live-nodes-add">New node</Link> and choose this site there.</>
+            <>Add one with <Link href={`/nodes/new?site=${siteId}`} className="text-tide underline-offset-2 hover:underline" data-testid="live-nodes-add">New node</Link> (this site is picked for it).</>
           ) : 'A deployer or owner adds them from New node, choosing this site.'}
         </p>
       ) : (
@@ -38,7 +38,7 @@ export function SiteLiveNodes({ nodes, timeZone, now, canAddNodes }: { nodes: Si
                 <span className="block text-ink-muted" data-testid="live-node-reading">
                   {n.last_reading_at ? (
                     <>
-                      last reading <time dateTime={n.last_reading_at} className="figures">{formatInTimeZone(new Date(n.last_reading_at), timeZone)}</time>
+                      last reading <time dateTime={n.last_reading_at} className="figures">{formatNearNow(new Date(n.last_reading_at), timeZone, now.getTime())}</time>
                       {' '}(<span className="figures">{formatAge(n.last_reading_at, now)}</span>) · bank <BankValue volts={n.volts} maxVolts={n.max_volts} />
                     </>
                   ) : 'no reading yet'}

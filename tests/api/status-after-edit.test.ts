@@ -1,6 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db } from '@/lib/db/knex';
-import { refreshNodeStatus } from '@/lib/db/queries/status';
+import { loadNodeForModel, refreshNodeStatus, refreshStatusOfNodes } from '@/lib/db/queries/status';
+import { modelBank, nightWindows } from '@/lib/energy';
+import { modelSpecFromRows } from '@/lib/status/node-spec';
+import { insertReading } from './alerts-fixtures';
 import { api } from './helpers/stack';
 import { createTestNode } from './helpers/fleet';
 
@@ -72,6 +75,45 @@ describe('status after an edit', () => {
     // comes about that much sooner, or a day less that later when the sooner one has passed.
     const shiftHours = (Date.parse(after.recharge_at!) - Date.parse(before.recharge_at!)) / 3_600_000;
     expect(Math.min(Math.abs(shiftHours + 6), Math.abs(shiftHours - 18))).toBeLessThan(1.5);
+  });
+});
+
+describe('the draw ratio after an edit', () => {
+  it('is measured again against the new settings at once: more leakage, more modelled draw, by ΔI·V', async () => {
+    const n = await createTestNode('draw-after-edit');
+    const loaded = (await loadNodeForModel(n.nodeId))!;
+    const spec = modelSpecFromRows(loaded.node, loaded.site);
+    const maxVolts = modelBank({ bank: spec.bank }).maxVolts;
+    const now = new Date();
+    const night = nightWindows({ site: spec.site, from: new Date(now.getTime() - 48 * 3_600_000), to: now })
+      .filter((w) => w.end < now && w.end.getTime() - w.start.getTime() > 4 * 3_600_000).pop()!;
+    expect(night).toBeDefined();
+    // A steady fall from 90 % to 75 % of the bank's maximum, a reading every 10 min through that night.
+    const volts: number[] = [];
+    const span = night.end.getTime() - night.start.getTime();
+    for (let t = night.start.getTime() + 300_000; t < night.end.getTime() - 300_000; t += 600_000) {
+      const v = maxVolts * (0.9 - (0.15 * (t - night.start.getTime())) / span);
+      volts.push(v);
+      await insertReading(db(), n.nodeId, new Date(t), Number(v.toFixed(4)));
+    }
+    await refreshStatusOfNodes([n.nodeId], now);
+    const before = await db()('node_status').where({ node_id: n.nodeId }).first('measured_watts', 'modelled_watts');
+    expect(before.measured_watts).toBeGreaterThan(0);
+    expect(before.modelled_watts).toBeGreaterThan(0);
+
+    const bank = n.body.bank as { cell_leakage_amps: number; cells_parallel: number };
+    const put = await n.session.agent.put(`/api/v1/nodes/${n.nodeId}`).set('origin', n.session.origin)
+      .send({ ...n.body, bank: { ...bank, cell_leakage_amps: bank.cell_leakage_amps + 0.001 } });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+    const after = await db()('node_status').where({ node_id: n.nodeId }).first('measured_watts', 'modelled_watts');
+    // The measured draw is the same night's energy slope: leakage settings do not change it.
+    expect(after.measured_watts).toBeCloseTo(before.measured_watts, 9);
+    // Leakage is drawn at the bank's voltage: P = V·I (textbook), averaged over the same readings,
+    // with 1 mA more a cell and the cells in parallel adding their leakage (common practice).
+    const meanVolts = volts.reduce((a, v) => a + v, 0) / volts.length;
+    expect(after.modelled_watts - before.modelled_watts).toBeCloseTo(0.001 * bank.cells_parallel * meanVolts, 4);
+    const fleet = (await n.session.agent.get('/api/v1/fleet')).body.nodes.find((r: { id: number }) => r.id === n.nodeId);
+    expect(fleet.draw_ratio).toBeCloseTo(after.measured_watts / after.modelled_watts, 6);
   });
 });
 

@@ -74,12 +74,16 @@ describe('a site page lists its live nodes', () => {
     const { page, consoleErrors } = await newPage(browser, { width: 390, height: 844 });
     await signInThroughForm(page, 'deployer@larkspur.example');
     await page.goto(`/sites/${made.body.id}`);
-    await expect(page.getByTestId('live-nodes-empty').textContent()).resolves.toMatch(/No nodes stand on this site yet\. Add one with New node and choose this site there\./);
-    await expect(page.getByTestId('live-nodes-add').getAttribute('href')).resolves.toBe('/nodes/new');
+    await expect(page.getByTestId('live-nodes-empty').textContent()).resolves.toMatch(/No nodes stand on this site yet\. Add one with New node \(this site is picked for it\)\./);
+    await expect(page.getByTestId('live-nodes-add').getAttribute('href')).resolves.toBe(`/nodes/new?site=${made.body.id}`);
     expect(await page.getByTestId('live-node').count()).toBe(0);
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, 'site-no-nodes-390');
+    // The link opens the new-node form with this site already chosen.
+    await page.getByTestId('live-nodes-add').click();
+    await page.waitForURL(`**/nodes/new?site=${made.body.id}`);
+    await expect(page.locator('#node-site').inputValue()).resolves.toBe(String(made.body.id));
     expect(consoleErrors).toEqual([]);
   });
 });

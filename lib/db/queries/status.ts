@@ -5,6 +5,7 @@ import { deriveNodeStatus, type DerivedStatus } from '../../status/derive-status
 import { calibratedVolts, modelSpecFromRows, type NodeRow, type SiteRow } from '../../status/node-spec';
 import { guardedStatusUpsert } from '../../ingest/status-upsert';
 import { latestReading } from './readings';
+import { measureNightOf } from '../../alerts/night-draw-of';
 
 /**
  * Loads what the model needs for one node: its row, its site, its organization's thresholds,
@@ -27,32 +28,46 @@ export async function loadNodeForModel(nodeId: number, knex: Knex | Knex.Transac
   };
 }
 
-/** Recomputes and stores a node's latest status from its latest reading. */
-export async function refreshNodeStatus(nodeId: number, now = new Date(), knex: Knex | Knex.Transaction = db()): Promise<DerivedStatus | null> {
+/**
+ * Recomputes and stores a node's latest status from its latest reading. With `remeasure` (after
+ * its settings or site change) the latest night's draw is measured again, as the margin pass
+ * does, so its modelled draw, the ratio of the two and the draw scale follow the new settings
+ * at once instead of at the next pass.
+ */
+export async function refreshNodeStatus(
+  nodeId: number,
+  now = new Date(),
+  knex: Knex | Knex.Transaction = db(),
+  { remeasure = false }: { remeasure?: boolean } = {},
+): Promise<DerivedStatus | null> {
   const loaded = await loadNodeForModel(nodeId, knex);
   if (!loaded) return null;
+  const spec = modelSpecFromRows(loaded.node, loaded.site);
   const last = await latestReading(nodeId, knex);
+  const night = remeasure ? await measureNightOf({ knex, node: loaded.node, spec, now }) : undefined;
   const status = deriveNodeStatus({
-    spec: modelSpecFromRows(loaded.node, loaded.site),
+    spec,
     latest: last ? { t: new Date(last.t), volts: calibratedVolts(loaded.node, last.v), panelVolts: last.vp } : null,
     now,
     thresholds: loaded.thresholds,
     // As the ingest does: the last measured night's excess draw, until the next pass measures again.
-    drawScale: loaded.drawScale,
+    drawScale: night === undefined ? loaded.drawScale : drawScaleFrom({ measuredWatts: night?.measuredWatts, modelledWatts: night?.modelledWatts }),
   });
+  const draw = night === undefined ? {} : { measured_watts: night?.measuredWatts ?? null, modelled_watts: night?.modelledWatts ?? null };
   // Guarded like the ingest's write: a reading stored meanwhile keeps its own, newer status.
-  const { sql, bindings } = guardedStatusUpsert({ node_id: nodeId, org_id: loaded.node.org_id, ...status });
+  const { sql, bindings } = guardedStatusUpsert({ node_id: nodeId, org_id: loaded.node.org_id, ...status, ...draw });
   await knex.raw(sql, bindings as never[]);
   return status;
 }
 
 /**
  * After a node's settings or its site change: the status is recomputed at once from the latest
- * reading with the new bank, converter, load or sun, so the fleet never shows a state, charge
- * or margin worked out for settings the node no longer has (until its next report).
+ * reading with the new bank, converter, load or sun, and last night's draw is measured again
+ * against them, so the fleet never shows a state, charge, margin or draw ratio worked out for
+ * settings the node no longer has (until its next report or pass).
  */
 export async function refreshStatusOfNodes(nodeIds: number[], now = new Date()): Promise<void> {
-  for (const nodeId of nodeIds) await refreshNodeStatus(nodeId, now);
+  for (const nodeId of nodeIds) await refreshNodeStatus(nodeId, now, db(), { remeasure: true });
 }
 
 export async function nodeIdsOfSite(orgId: number, siteId: number, knex: Knex | Knex.Transaction = db()): Promise<number[]> {

@@ -9,13 +9,16 @@ import { listSites } from '@/lib/db/queries/sites';
 
 export const metadata: Metadata = { title: 'New node' };
 
-export default async function NewNodePage() {
+/** `?site=<id>` (from a site's page) picks that site in advance, if it is one of this organization's. */
+export default async function NewNodePage({ searchParams }: { searchParams: Promise<{ site?: string }> }) {
   const member = await currentMember();
   if (!member) redirect('/sign-in');
   if (!can(member.role, 'nodes:write')) {
     return <p className="text-ink-muted" data-testid="read-only-notice">Deployers and owners add nodes. Your role ({member.role}) reads the fleet.</p>;
   }
   const sites = await listSites(member.orgId);
+  const asked = Number((await searchParams).site);
+  const siteId = sites.find((s) => s.id === asked)?.id ?? (sites.length === 1 ? sites[0].id : 0);
   return (
     <section className="max-w-6xl">
       <Link href="/fleet" className="text-sm text-tide underline-offset-2 hover:underline">← Tonight</Link>
@@ -24,7 +27,7 @@ export default async function NewNodePage() {
       {sites.length === 0 ? (
         <p className="mt-6 rounded-xl border border-dusk-700 bg-dusk-900 p-4" data-testid="no-sites">A node stands on a site: <Link className="text-tide underline" href="/sites/new">add a site first</Link>.</p>
       ) : (
-        <div className="mt-6"><NodeForm initial={{ ...NEW_NODE, site_id: sites.length === 1 ? sites[0].id : 0 }} sites={sites.map((s) => ({ id: s.id, name: s.name }))} /></div>
+        <div className="mt-6"><NodeForm initial={{ ...NEW_NODE, site_id: siteId }} sites={sites.map((s) => ({ id: s.id, name: s.name }))} /></div>
       )}
     </section>
   );

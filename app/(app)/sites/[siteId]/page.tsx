@@ -7,7 +7,7 @@ import { SiteLiveNodes } from '@/components/sites/site-live-nodes';
 import { describeZoneNow } from '@/components/sites/zone-offset';
 import { can } from '@/lib/auth/roles';
 import { listLiveNodes, listRetiredNodes } from '@/lib/db/queries/sites';
-import { formatInTimeZone } from '@/lib/format/time';
+import { formatInTimeZone, TIME_PATTERNS } from '@/lib/format/time';
 import { loadSitePage } from './load-site';
 
 export const metadata: Metadata = { title: 'Site' };
@@ -24,7 +24,7 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
   const { id: _id, live_nodes: nodes, ...body } = site;
   const [live, retired] = await Promise.all([listLiveNodes(member.orgId, site.id), listRetiredNodes(member.orgId, site.id)]);
   const now = new Date();
-  const local = (iso: string) => formatInTimeZone(new Date(iso), site.time_zone);
+  const local = (iso: string) => formatInTimeZone(new Date(iso), site.time_zone, TIME_PATTERNS.record);
   return (
     <section className="flex flex-col gap-4">
       <div>
@@ -32,7 +32,7 @@ export default async function SitePage({ params }: { params: Promise<{ siteId: s
         <h1 className="mt-1 text-2xl font-bold [overflow-wrap:anywhere]" data-testid="site-name">{site.name}</h1>
         <p className="text-sm text-ink-muted">{nodes} node{nodes === 1 ? '' : 's'} on this site.</p>
       </div>
-      <SiteLiveNodes nodes={live} timeZone={site.time_zone} now={now} canAddNodes={can(member.role, 'nodes:write')} />
+      <SiteLiveNodes siteId={site.id} nodes={live} timeZone={site.time_zone} now={now} canAddNodes={can(member.role, 'nodes:write')} />
       {can(member.role, 'sites:write') ? (
         <>
           <SiteForm siteId={site.id} initial={body} />
