@@ -60,7 +60,7 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                     <td className="figures whitespace-nowrap pr-3 text-right"><DawnEnergy n={n} /></td>
                     <td className={`figures whitespace-nowrap pr-3 text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</td>
                     <td className="figures whitespace-nowrap pr-3 text-right"><Draw n={n} /></td>
-                    <td className={`figures pr-3 text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</td>
+                    <td className={`figures pr-3 text-right ${marginTone(n.margin_at_dusk)}`}><DuskMargin n={n} /></td>
                     <td className="text-sm"><Outcome n={n} t={t} nearFloorVolts={nearFloorVolts} /></td>
                   </tr>
                 ))}
@@ -79,7 +79,7 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
                   <dt className="font-sans text-ink-faint">{n.complete ? 'Energy dawn' : 'Energy now'}</dt><dd className="text-right"><DawnEnergy n={n} /></dd>
                   <dt className="font-sans text-ink-faint">Lowest</dt><dd className={`text-right ${lowTone(n)}`}>{formatVolts(n.min_volts)}</dd>
                   <dt className="font-sans text-ink-faint">Draw meas. / model</dt><dd className="text-right"><Draw n={n} /></dd>
-                  <dt className="font-sans text-ink-faint">Margin at dusk</dt><dd className={`text-right ${marginTone(n.margin_at_dusk)}`}>{formatMargin(n.margin_at_dusk)}</dd>
+                  <dt className="font-sans text-ink-faint">Margin at dusk</dt><dd className={`text-right ${marginTone(n.margin_at_dusk)}`}><DuskMargin n={n} /></dd>
                   <dt className="font-sans text-ink-faint">Outcome</dt><dd className="text-right font-sans"><Outcome n={n} t={t} nearFloorVolts={nearFloorVolts} /></dd>
                 </dl>
               </li>
@@ -88,6 +88,19 @@ export function NightTable({ nodeId, timeZone }: { nodeId: number; timeZone: str
         </>
       ) : null}
     </section>
+  );
+}
+
+/** The margin the app gave at dusk; marked when it was projected with the night before's measured draw. */
+function DuskMargin({ n }: { n: NightRowWire }) {
+  if (n.margin_at_dusk === null || !(n.margin_draw_scale > 1)) return <>{formatMargin(n.margin_at_dusk)}</>;
+  return (
+    <>
+      {formatMargin(n.margin_at_dusk)}
+      <span className="block text-xs font-normal text-ink-muted" title={`Projected with the night before's measured draw, ${n.margin_draw_scale.toFixed(2)} × what the settings predict`} data-testid="dusk-margin-measured">
+        at {n.margin_draw_scale.toFixed(2)} × draw
+      </span>
+    </>
   );
 }
 

@@ -4,6 +4,8 @@ import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
+import { ROLE_SUMMARY } from '@/lib/auth/role-words';
+import { ROLES } from '@/lib/auth/roles';
 import { apiFetch, fieldErrors } from '@/lib/client/api';
 
 export function InviteForm() {
@@ -41,9 +43,7 @@ export function InviteForm() {
         <label htmlFor="invite-role" className="text-sm font-bold">Role</label>
         <select id="invite-role" name="role" defaultValue="viewer" aria-invalid={errors.role ? true : undefined} aria-describedby={errors.role ? 'invite-role-error' : undefined}
           className="w-full min-w-0 rounded-md border border-dusk-600 bg-dusk-950 px-3 py-2">
-          <option value="viewer">viewer — reads everything, changes nothing</option>
-          <option value="deployer">deployer — sites, nodes, credentials, imports, bench</option>
-          <option value="owner">owner — everything, members included</option>
+          {ROLES.map((r) => <option key={r} value={r}>{r} — {ROLE_SUMMARY[r]}</option>)}
         </select>
         {errors.role ? <p id="invite-role-error" className="text-sm text-hazard" role="alert">{errors.role}</p> : null}
       </div>

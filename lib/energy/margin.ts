@@ -81,6 +81,7 @@ export function nightMargin({
   at,
   rechargeAt = nextRechargeAt({ site, at }),
   floorVolts,
+  drawScale = 1,
 }: {
   bank: BankSpec;
   converter: ConverterSpec;
@@ -91,11 +92,13 @@ export function nightMargin({
   /** Pass a precomputed recharge instant (or null) to skip the sun search. */
   rechargeAt?: Date | null;
   floorVolts?: number;
+  /** The bank-side draw as a multiple of the load profile's (drawScaleFrom); 1 is the plain model. */
+  drawScale?: number;
 }): MarginResult {
   const model = modelBank({ bank });
   const floor = floorVolts ?? solveBurstFloor({ bank: model, converter, load }).volts;
   const windowSeconds = rechargeAt ? (rechargeAt.getTime() - at.getTime()) / 1000 : SEARCH_LIMIT_SECONDS;
-  const result = marginOverWindow({ bank: model, converter, load, volts, windowSeconds, floorVolts: floor });
+  const result = marginOverWindow({ bank: model, converter, load, volts, windowSeconds, floorVolts: floor, drawScale });
   return {
     reserveJoules: result.reserveJoules,
     drawJoules: result.drawJoules,

@@ -40,7 +40,7 @@ export function readingCsvLine({ row, calibrate }: { row: ReadingCsvRow; calibra
 
 export const NIGHTS_CSV_HEADER = [
   'dusk_utc', 'dawn_utc', 'dusk_local', 'dawn_local', 'complete', 'readings', 'dusk_volts', 'dawn_volts',
-  'dusk_energy_j', 'dawn_energy_j', 'min_volts', 'measured_w', 'modelled_w', 'draw_ratio', 'margin_at_dusk', 'projected_brownout_utc', 'quiet_from_utc', 'quiet_volts',
+  'dusk_energy_j', 'dawn_energy_j', 'min_volts', 'measured_w', 'modelled_w', 'draw_ratio', 'margin_at_dusk', 'margin_draw_scale', 'projected_brownout_utc', 'quiet_from_utc', 'quiet_volts',
 ];
 
 export function nightsCsv({ nights, timeZone }: { nights: NightRowWire[]; timeZone: string }): string {
@@ -52,7 +52,7 @@ export function nightsCsv({ nights, timeZone }: { nights: NightRowWire[]; timeZo
     out += csvLine([
       iso(n.dusk_at), iso(n.dawn_at), local(n.dusk_at), local(n.dawn_at), n.complete ? 'yes' : 'no', n.readings,
       fixed(n.dusk_volts, 4), fixed(n.dawn_volts, 4), fixed(n.dusk_energy_joules, 2), fixed(n.dawn_energy_joules, 2), fixed(n.min_volts, 4),
-      fixed(n.measured_watts, 7), fixed(n.modelled_watts, 7), fixed(n.draw_ratio, 3), fixed(n.margin_at_dusk, 3), iso(n.projected_brownout_at), iso(n.quiet_from), fixed(n.quiet_volts, 4),
+      fixed(n.measured_watts, 7), fixed(n.modelled_watts, 7), fixed(n.draw_ratio, 3), fixed(n.margin_at_dusk, 3), fixed(n.margin_draw_scale, 3), iso(n.projected_brownout_at), iso(n.quiet_from), fixed(n.quiet_volts, 4),
     ]);
   }
   return out;

@@ -1,5 +1,5 @@
 import { drawOverWindow } from '../alerts/night-draw';
-import { energyJoules, modelBank, nightMargin, type VoltageSample } from '../energy';
+import { drawScaleFrom, energyJoules, modelBank, nightMargin, type VoltageSample } from '../energy';
 import { QUIET_INTERVALS } from '../status/derive-status';
 import type { NodeModelSpec } from '../status/node-spec';
 import type { NightRowWire } from './wire';
@@ -8,7 +8,9 @@ import type { NightRowWire } from './wire';
  * One row per night (sun below the site's recharge elevation): the bank at dusk and at dawn
  * (the first and last reading inside the night), its lowest volts, the draw measured from the
  * slope of ½·C·V² over the night against the modelled draw at the cadence seen (the same fit
- * the draw-anomaly alert uses), and the margin the model gave at dusk for that night's length.
+ * the draw-anomaly alert uses), and the margin the app gave at dusk for that night's length:
+ * projected, as the live status is, with the night before's measured draw when that was far
+ * above the model (drawScaleFrom), so a leaky node's row shows the warning it really had.
  * `quiet_from` is where the node fell silent inside the night (a gap of more than three report
  * intervals, up to dawn or to now), so a night the model called safe and the node did not
  * survive reads as such. Samples carry calibrated volts; instants leave as Unix seconds.
@@ -26,12 +28,17 @@ export function buildNightRows({
 }): NightRowWire[] {
   const farads = modelBank({ bank: spec.bank }).farads;
   const sorted = [...samples].sort((a, b) => ms(a.t) - ms(b.t));
-  return nights.map((night) => {
-    const inside = sorted.filter((s) => ms(s.t) >= night.start.getTime() && ms(s.t) <= night.end.getTime());
+  const insideOf = (night: { start: Date; end: Date }) => sorted.filter((s) => ms(s.t) >= night.start.getTime() && ms(s.t) <= night.end.getTime());
+  const draws = nights.map((night) => drawOverWindow({ spec, samples: insideOf(night) }));
+  return nights.map((night, i) => {
+    const inside = insideOf(night);
     const first = inside[0];
     const last = inside[inside.length - 1];
-    const draw = drawOverWindow({ spec, samples: inside });
-    const margin = first ? nightMargin({ ...spec, volts: first.volts, at: new Date(ms(first.t)), rechargeAt: night.end }) : null;
+    const draw = draws[i];
+    // Newest first: the night before this one is the next in the list (the oldest has none).
+    const before = draws[i + 1];
+    const drawScale = drawScaleFrom({ measuredWatts: before?.measuredWatts, modelledWatts: before?.modelledWatts });
+    const margin = first ? nightMargin({ ...spec, volts: first.volts, at: new Date(ms(first.t)), rechargeAt: night.end, drawScale }) : null;
     const quietFrom = firstSilence({ times: inside.map((x) => ms(x.t)), until: Math.min(night.end.getTime(), now.getTime()), intervalSeconds: spec.load.intervalSeconds });
     const quietReading = quietFrom === null ? undefined : inside.find((x) => ms(x.t) === quietFrom);
     return {
@@ -50,6 +57,7 @@ export function buildNightRows({
       modelled_watts: draw?.modelledWatts ?? null,
       draw_ratio: draw && Number.isFinite(draw.ratio) ? draw.ratio : null,
       margin_at_dusk: margin && Number.isFinite(margin.margin) ? margin.margin : null,
+      margin_draw_scale: drawScale,
       projected_brownout_at: margin?.brownoutAt ? margin.brownoutAt.getTime() / 1000 : null,
       quiet_from: quietFrom === null ? null : quietFrom / 1000,
       quiet_volts: quietReading ? quietReading.volts : null,

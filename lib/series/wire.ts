@@ -112,8 +112,10 @@ export interface NightRowWire {
   measured_watts: number | null;
   modelled_watts: number | null;
   draw_ratio: number | null;
-  /** The model's night margin from the dusk reading to this dawn. */
+  /** The model's night margin from the dusk reading to this dawn, at margin_draw_scale × the modelled draw. */
   margin_at_dusk: number | null;
+  /** 1: the plain model; above 1: the night before's measured draw, as the live status projects. */
+  margin_draw_scale: number;
   projected_brownout_at: number | null;
   /** The last reading before the node fell silent inside the night (over 3 report intervals), or null. */
   quiet_from: number | null;

@@ -15,9 +15,10 @@ export const DEFAULT_NIGHT_COUNT = 14;
  */
 export async function loadNightTable({ orgId, nodeId, count = DEFAULT_NIGHT_COUNT, now = new Date() }: { orgId: number; nodeId: number; count?: number; now?: Date }): Promise<NightsReply> {
   const loaded = await loadNodeInOrg({ orgId, nodeId });
-  const from = new Date(now.getTime() - (count + 2) * DAY_MS);
+  const from = new Date(now.getTime() - (count + 3) * DAY_MS);
   const windows = nightWindows({ site: loaded.spec.site, from, to: new Date(now.getTime() + DAY_MS) }).filter((w) => w.start.getTime() > from.getTime());
-  const nights = lastNights({ windows, now, count });
+  // One night more than shown: the oldest row's margin needs the draw of the night before it.
+  const nights = lastNights({ windows, now, count: count + 1 });
   const oldest = nights.at(-1);
   const samples = oldest ? await readSamples({ loaded, from: oldest.start, to: now }) : [];
   const bank = bankFigures({ spec: loaded.spec });
@@ -28,6 +29,6 @@ export async function loadNightTable({ orgId, nodeId, count = DEFAULT_NIGHT_COUN
     time_zone: loaded.site.time_zone,
     burst_floor_volts: bank.burst_floor_volts,
     max_volts: bank.max_volts,
-    nights: buildNightRows({ spec: loaded.spec, nights, samples, now }),
+    nights: buildNightRows({ spec: loaded.spec, nights, samples, now }).slice(0, count),
   };
 }

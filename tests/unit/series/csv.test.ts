@@ -17,7 +17,7 @@ describe('CSV lines (RFC 4180)', () => {
     const csv = nightsCsv({ timeZone: 'America/Los_Angeles', nights: [{
       dusk_at: Date.parse('2026-12-01T00:30:00Z') / 1000, dawn_at: Date.parse('2026-12-01T16:00:00Z') / 1000, complete: true, readings: 90,
       dusk_reading_at: null, dawn_reading_at: null, dusk_volts: 4.2, dawn_volts: 3.1, dusk_energy_joules: 220.5, dawn_energy_joules: 120.1,
-      min_volts: 3.1, measured_watts: 0.0021, modelled_watts: 0.0018, draw_ratio: 1.1667, margin_at_dusk: 2.5, projected_brownout_at: null,
+      min_volts: 3.1, measured_watts: 0.0021, modelled_watts: 0.0018, draw_ratio: 1.1667, margin_at_dusk: 2.5, margin_draw_scale: 1, projected_brownout_at: null,
       quiet_from: Date.parse('2026-12-01T11:15:00Z') / 1000, quiet_volts: 0.812,
     }] });
     const [header, row, end] = csv.split('\r\n');

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { modelBank, nightMargin } from '@/lib/energy';
+import { drawScaleFrom, modelBank, nightMargin } from '@/lib/energy';
 import { buildNightRows, lastNights } from '@/lib/series/night-table';
 import { bank, converter, load, site } from '../energy/fixtures';
 
@@ -64,6 +64,34 @@ describe('buildNightRows', () => {
   it('leaves a night without readings empty rather than invented', () => {
     const [empty] = buildNightRows({ spec, nights: [{ start, end }], samples: [], now: end });
     expect(empty).toMatchObject({ readings: 0, dusk_volts: null, min_volts: null, measured_watts: null, margin_at_dusk: null });
+  });
+});
+
+describe('the margin at dusk after a night of heavy draw', () => {
+  // The night before (19–20 Dec) drawn at a constant 10 mW from 3 V (540 J of the 675 J at dusk), five times the 2 mW night above.
+  const prevStart = new Date('2026-12-19T16:00:00Z');
+  const prevEnd = new Date('2026-12-20T07:00:00Z');
+  const heavy = [];
+  for (let t = 0; t <= (prevEnd.getTime() - prevStart.getTime()) / 1000; t += 600) {
+    heavy.push({ t: new Date(prevStart.getTime() + t * 1000), volts: Math.sqrt(9 - (2 * 0.01 * t) / farads) });
+  }
+  const rows = buildNightRows({
+    spec, nights: [{ start, end }, { start: prevStart, end: prevEnd }], samples: [...samples(600), ...heavy], now: new Date('2026-12-22T00:00:00Z'),
+  });
+
+  it('is projected with the night before’s measured draw, as the live status is', () => {
+    const [tonight, before] = rows;
+    const scale = drawScaleFrom({ measuredWatts: before.measured_watts, modelledWatts: before.modelled_watts });
+    expect(before.measured_watts).toBeCloseTo(0.01, 5); // ½C(V0² − V²) = P·t (derived here)
+    expect(scale).toBeGreaterThan(1);
+    expect(tonight.margin_draw_scale).toBe(scale);
+    expect(tonight.margin_at_dusk).toBeCloseTo(nightMargin({ ...spec, volts: 3, at: start, rechargeAt: end, drawScale: scale }).margin, 9);
+    expect(tonight.margin_at_dusk!).toBeLessThan(nightMargin({ ...spec, volts: 3, at: start, rechargeAt: end }).margin);
+  });
+
+  it('the oldest night, with none before it, keeps the plain model', () => {
+    expect(rows[1].margin_draw_scale).toBe(1);
+    expect(rows[1].margin_at_dusk).toBeCloseTo(nightMargin({ ...spec, volts: 3, at: prevStart, rechargeAt: prevEnd }).margin, 9);
   });
 });
 
