@@ -25,12 +25,16 @@ export function tonightSentence({ s }: { s: StatusReply }): { text: string; tone
     return { text: `Projected to brown out at ${at(s.brownout_at)}, and no report has come since ${last}.`, tone: 'hazard' };
   }
   const measured = s.draw_scale > 1 ? ` Projected with the draw measured last night, ${s.draw_scale.toFixed(2)}× what its settings predict.` : '';
+  if (s.charging && s.charging_until === null) return { text: 'Charging: the sun does not set within seven days (polar day), so there is no night to carry.', tone: 'ember' };
+  // By day the bank is charging: tonight is counted from dusk with the bank as it is now.
+  const fromDusk = s.charging && s.charging_until !== null ? `Charging now. From dusk at ${at(s.charging_until)}, with the bank as it is now: ` : '';
+  const say = (text: string) => (fromDusk ? fromDusk + text.charAt(0).toLowerCase() + text.slice(1) : text);
   if (s.brownout_at !== null) {
     const early = s.recharge_at !== null ? ` — ${spanWords(s.recharge_at - s.brownout_at)} before the recharge at ${at(s.recharge_at)}` : '';
-    return { text: `Projected to brown out at ${at(s.brownout_at)}${early}.${measured}`, tone: 'hazard' };
+    return { text: say(`Projected to brown out at ${at(s.brownout_at)}${early}.${measured}`), tone: 'hazard' };
   }
-  if (s.recharge_at === null) return { text: 'No recharge within seven days (polar night): the margin covers the week ahead.', tone: 'muted' };
-  return { text: `Reaches the recharge at ${at(s.recharge_at)} with ${formatMargin(s.margin)} the energy it needs.${measured}`, tone: 'ember' };
+  if (s.recharge_at === null) return { text: say('No recharge within seven days (polar night): the margin covers the week ahead.'), tone: 'muted' };
+  return { text: say(`Reaches the recharge at ${at(s.recharge_at)} with ${formatMargin(s.margin)} the energy it needs.${measured}`), tone: 'ember' };
 }
 
 export function spanWords(seconds: number): string {

@@ -4,7 +4,7 @@ import { nextReportSeconds } from './cadence';
 import { averageOutputWatts, bankWatts } from './load';
 import { marginOverWindow } from './margin';
 import { stateFromMargin } from './state';
-import { nextRechargeAt, SEARCH_LIMIT_SECONDS } from './sun';
+import { dischargeWindow } from './sun';
 import {
   DEFAULT_THRESHOLDS,
   type BankSpec,
@@ -42,6 +42,8 @@ export interface NodeEvaluation {
   /** Bank-side average power at the given voltage, at the configured interval. */
   loadWatts: number;
   rechargeAt: Date | null;
+  /** By day: the sunset from which the bank carries the load alone (the margin counts from there); null at night. */
+  chargingUntil: Date | null;
   margin: number;
   brownoutAt: Date | null;
   state: MarginState;
@@ -55,8 +57,11 @@ export function evaluateNode(input: NodeInput): NodeEvaluation {
   // The floor and the recharge instant do not depend on the report interval: solve them once
   // and share them with the cadence search.
   const floorVolts = solveBurstFloor({ bank, converter, load }).volts;
-  const rechargeAt = nextRechargeAt({ site, at });
-  const windowSeconds = rechargeAt ? (rechargeAt.getTime() - at.getTime()) / 1000 : SEARCH_LIMIT_SECONDS;
+  // By day the stretch to carry starts at dusk (dischargeWindow): the bank is taken as it is now.
+  const window = dischargeWindow({ site, at });
+  const { rechargeAt } = window;
+  const windowSeconds = window.seconds;
+  const startMs = window.startAt?.getTime() ?? at.getTime();
   // A reading above the bank's rated maximum (ns·Vr) is a charger fault, a wrong bank setting or
   // a bad calibration: the model credits no energy above the rating, so the reserve, the margin
   // and the brownout are never flattered by it. The energy and the short-circuit current keep
@@ -73,8 +78,10 @@ export function evaluateNode(input: NodeInput): NodeEvaluation {
     reserveJoules: result.reserveJoules,
     loadWatts: bankWatts({ outputWatts, efficiency: converter.efficiency, leakageAmps: bank.leakageAmps, volts: creditedVolts }),
     rechargeAt,
+    chargingUntil: window.chargingNow ? window.startAt : null,
     margin: result.margin,
-    brownoutAt: result.brownoutSeconds === null ? null : new Date(at.getTime() + result.brownoutSeconds * 1000),
+    // A bank at or below the floor is there now, day or night.
+    brownoutAt: result.brownoutSeconds === null ? null : result.reserveJoules <= 0 ? at : new Date(startMs + result.brownoutSeconds * 1000),
     state: stateFromMargin({ margin: result.margin, thresholds: input.thresholds ?? DEFAULT_THRESHOLDS }),
     // The margin just computed is the one at the configured interval when that is whole seconds.
     nextReportSeconds: nextReportSeconds({

@@ -7,6 +7,8 @@ export { checkBurst, burstCompletes, solveBurstFloor, burstFloorVolts, reserveJo
 export { buildDischargeTable, secondsAtVolts, voltsAtSeconds, traceDischarge, type DischargeTable } from './discharge';
 export {
   apparentFromTrueDeg,
+  dischargeWindow,
+  type DischargeWindow,
   findSunCrossing,
   isSunBelow,
   nextRechargeAt,

@@ -120,3 +120,38 @@ function bisectCrossing({
   }
   return Math.round(highMs / 1000) * 1000;
 }
+
+/**
+ * The stretch a bank must carry on its own from `at` until the next recharge. At night it
+ * starts now. While the sun is above the site's recharge elevation the panel gives net charge,
+ * so the bank only rises until dusk: the stretch starts at the next sunset, with the bank taken
+ * as it is now (the safe side: what it gains by dusk is not counted). A day with no sunset
+ * within the search (polar day) leaves nothing to carry. A panel that gives nothing by day is
+ * not this function's to see: the day-charge alert (lib/alerts/day-charge.ts) watches for it.
+ */
+export interface DischargeWindow {
+  /** When the bank starts carrying the load alone: `at` at night, the next sunset by day, null in polar day. */
+  startAt: Date | null;
+  /** The next sun rising through the recharge elevation after that start; null within 7 days (polar night). */
+  rechargeAt: Date | null;
+  /** The sun is above the recharge elevation at `at`. */
+  chargingNow: boolean;
+  /** Seconds from `at` to `startAt` (0 at night), and of discharge from `startAt` to recharge (7 days at most). */
+  delaySeconds: number;
+  seconds: number;
+}
+
+export function dischargeWindow({ site, at }: { site: SiteSpec; at: Date }): DischargeWindow {
+  if (isSunBelow({ site, at })) {
+    const rechargeAt = nextRechargeAt({ site, at });
+    return { startAt: at, rechargeAt, chargingNow: false, delaySeconds: 0, seconds: rechargeAt ? (rechargeAt.getTime() - at.getTime()) / 1000 : SEARCH_LIMIT_SECONDS };
+  }
+  const startAt = nextSunsetAt({ site, at });
+  if (!startAt) return { startAt: null, rechargeAt: null, chargingNow: true, delaySeconds: 0, seconds: 0 };
+  const rechargeAt = nextRechargeAt({ site, at: startAt });
+  return {
+    startAt, rechargeAt, chargingNow: true,
+    delaySeconds: (startAt.getTime() - at.getTime()) / 1000,
+    seconds: rechargeAt ? (rechargeAt.getTime() - startAt.getTime()) / 1000 : SEARCH_LIMIT_SECONDS,
+  };
+}

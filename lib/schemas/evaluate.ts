@@ -68,6 +68,7 @@ export function evaluationToWire(e: NodeEvaluation) {
     reserve_joules: e.reserveJoules,
     load_watts: e.loadWatts,
     recharge_at: e.rechargeAt ? e.rechargeAt.toISOString() : null,
+    charging_until: e.chargingUntil ? e.chargingUntil.toISOString() : null,
     margin: Number.isFinite(e.margin) ? e.margin : null,
     brownout_at: e.brownoutAt ? e.brownoutAt.toISOString() : null,
     state: e.state,

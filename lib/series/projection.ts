@@ -1,6 +1,6 @@
 import {
-  averageOutputWatts, bankWattsCurve, buildDischargeTable, efficiencyBreakVolts, energyJoules, modelBank, nextRechargeAt,
-  reserveJoules, SEARCH_LIMIT_SECONDS, solveBurstFloor, traceDischarge, type BankSpec, type ConverterSpec, type LoadSpec, type SiteSpec,
+  averageOutputWatts, bankWattsCurve, buildDischargeTable, dischargeWindow, efficiencyBreakVolts, energyJoules, modelBank,
+  reserveJoules, solveBurstFloor, traceDischarge, type BankSpec, type ConverterSpec, type LoadSpec, type SiteSpec,
 } from '../energy';
 import type { ProjectionWire } from './wire';
 
@@ -8,7 +8,8 @@ import type { ProjectionWire } from './wire';
  * The projection drawn as the curve's continuation: the model's discharge from the latest
  * reading, at the configured cadence, until the next recharge (sun up through the site's
  * recharge elevation) or until the bank reaches the burst floor, whichever comes first — the
- * same discharge the night margin is computed from (lib/energy/margin.ts).
+ * same discharge the night margin is computed from (lib/energy/margin.ts). By day the curve
+ * holds the present volts until dusk and falls from there (dischargeWindow).
  */
 export const PROJECTION_STEPS = 120;
 
@@ -28,15 +29,20 @@ export function projectDischarge({
 }): ProjectionWire {
   const bank = modelBank({ bank: spec.bank });
   const floorVolts = solveBurstFloor({ bank, converter: spec.converter, load: spec.load }).volts;
-  const rechargeAt = nextRechargeAt({ site: spec.site, at });
-  const windowSeconds = rechargeAt ? (rechargeAt.getTime() - at.getTime()) / 1000 : SEARCH_LIMIT_SECONDS;
+  const window = dischargeWindow({ site: spec.site, at });
+  const { rechargeAt, delaySeconds } = window;
+  const windowSeconds = window.seconds;
   const atSeconds = at.getTime() / 1000;
   const rechargeSeconds = rechargeAt ? rechargeAt.getTime() / 1000 : null;
-  const { points, floorSeconds } = volts > floorVolts
+  const traced = volts > floorVolts && windowSeconds > 0
     ? traceToFloor({ spec, farads: bank.farads, leakageAmps: bank.leakageAmps, volts, floorVolts, windowSeconds, steps, drawScale })
-    : { points: [{ t: 0, volts }], floorSeconds: 0 };
+    : { points: [{ t: 0, volts }], floorSeconds: volts > floorVolts ? Number.POSITIVE_INFINITY : 0 };
+  // By day: held at the present volts until dusk, then the night's discharge.
+  const points = delaySeconds > 0 ? [{ t: 0, volts }, ...traced.points.map((p) => ({ t: p.t + delaySeconds, volts: p.volts }))] : traced.points;
+  // A bank at or below the floor is there now, day or night.
+  const floorSeconds = volts > floorVolts ? traced.floorSeconds + delaySeconds : 0;
   // Browned out: the bank reaches the floor within the window (as marginOverWindow decides it).
-  const brownout = floorSeconds <= windowSeconds;
+  const brownout = traced.floorSeconds <= windowSeconds;
   return {
     from_at: atSeconds,
     t: points.map((p) => Number((atSeconds + p.t).toFixed(3))),

@@ -1,5 +1,5 @@
 import { measureLatestNight } from '../alerts/night-draw';
-import { drawScaleFrom, type StateThresholds, type VoltageSample } from '../energy';
+import { dischargeWindow, drawScaleFrom, type StateThresholds, type VoltageSample } from '../energy';
 import { deriveNodeStatus } from '../status/derive-status';
 import type { NodeModelSpec } from '../status/node-spec';
 import { bankFigures } from './bank-figures';
@@ -34,6 +34,7 @@ export function buildStatusReply({
   const drawScale = drawScaleFrom({ measuredWatts: night?.measuredWatts, modelledWatts: night?.modelledWatts });
   const s = deriveNodeStatus({ spec, latest, now, thresholds, lastAdvisedIntervalSeconds: advisedSeconds, drawScale });
   const sec = (d: Date | null) => (d ? d.getTime() / 1000 : null);
+  const window = latest ? dischargeWindow({ site: spec.site, at: latest.t }) : null;
   return {
     time_unit: 's',
     node,
@@ -48,6 +49,8 @@ export function buildStatusReply({
     load_watts: s.load_watts,
     recharge_at: sec(s.recharge_at),
     brownout_at: sec(s.brownout_at),
+    charging: window?.chargingNow ?? false,
+    charging_until: window?.chargingNow ? sec(window.startAt) : null,
     next_report_s: s.next_report_s,
     evaluated_at: now.getTime() / 1000,
     bank: bankFigures({ spec }),

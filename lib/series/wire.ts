@@ -87,6 +87,12 @@ export interface StatusReply {
   load_watts: number | null;
   recharge_at: number | null;
   brownout_at: number | null;
+  /**
+   * At the latest reading the sun was above the site's recharge elevation: the bank was charging,
+   * and the margin counts from `charging_until` (that day's dusk; null in polar day).
+   */
+  charging: boolean;
+  charging_until: number | null;
   next_report_s: number | null;
   evaluated_at: number;
   bank: BankFigures;

@@ -19,7 +19,7 @@ export default async function BenchPage() {
         Measure each cell of a batch before it goes out: capacitance and ESR against the maker&apos;s rating.
         {canUpload ? '' : ' Deployers and owners upload logs; you can read every batch.'}
       </p>
-      <div className="mt-4 grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]"><BenchMethod /><BenchCautions /></div>
+      <div className="mt-4 grid gap-4 items-start lg:grid-cols-[minmax(0,1fr)_22rem]"><BenchMethod /><BenchCautions /></div>
       <BenchBoard initial={batches} canUpload={canUpload} />
     </section>
   );

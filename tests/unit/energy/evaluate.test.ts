@@ -11,7 +11,7 @@ describe('evaluateNode', () => {
     expect(Object.keys(result).sort()).toEqual(
       [
         'energyJoules', 'usableJoules', 'soc', 'burstFloorVolts', 'reserveJoules', 'loadWatts',
-        'rechargeAt', 'margin', 'brownoutAt', 'state', 'nextReportSeconds', 'shortCircuitAmps',
+        'rechargeAt', 'chargingUntil', 'margin', 'brownoutAt', 'state', 'nextReportSeconds', 'shortCircuitAmps',
       ].sort(),
     );
   });
